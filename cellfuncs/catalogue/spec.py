@@ -1,0 +1,131 @@
+"""The data types of the catalogue: one :class:`CellFunction` per cell function.
+
+A catalogue entry says everything a cell user sees: the Excel name, the
+category, a one-line description (<= 255 characters, Excel's limit), the
+arguments with their unit, help text, default and allowed words, and what is
+returned.  The core callable is named by a dotted path (``"pkg.mod:func"``) and
+imported on first use, so building the catalogue imports no physics.
+
+Argument kinds
+--------------
+``number``   a real number; the adapters reject text, booleans, NaN.
+``integer``  a number that must be whole (pole pairs, stage index).
+``option``   one word from ``options`` (case-insensitive, spaces ignored;
+             ``aliases`` maps more words onto them).  A blank, ``""`` or ``0``
+             means "use the default" (the headless engine hands an omitted
+             argument over as 0).
+``text``     free text (a unit name, a reference condition ``"15/15"``).
+``range``    a block of cells: the core receives a tuple of rows, each a tuple
+             of cells; a cell is a float, a str or ``None`` (blank).
+"""
+
+from __future__ import annotations
+
+import importlib
+from dataclasses import dataclass, field
+from typing import Any, Callable
+
+__all__ = ["REQUIRED", "Arg", "CellFunction", "KINDS"]
+
+
+class _Required:
+    def __repr__(self) -> str:  # pragma: no cover - cosmetic
+        return "REQUIRED"
+
+
+REQUIRED: Any = _Required()
+KINDS = ("number", "integer", "option", "text", "range")
+
+
+@dataclass(frozen=True)
+class Arg:
+    """One argument of a cell function.
+
+    Parameters
+    ----------
+    name : str
+        snake_case name, also the Excel argument name (a valid VBA identifier).
+    help : str
+        One sentence for Excel's function wizard; the unit is appended.
+    unit : str
+        Unit at the cell boundary: ``"°C"``, ``"K"``, ``"bar(a)"``, ``"kW"``,
+        ``"kg/h"``, ``"m³/h"``, ``"kW/K"``, ``"W/(m²·K)"``, ``"m²"``, ``"-"``;
+        empty for option, text and range arguments.
+    kind : str
+        One of :data:`KINDS`.
+    default : object
+        :data:`REQUIRED`, or the value used when the cell is blank.  ``None``
+        is allowed and means "the core decides" (documented in ``help``).
+    options : tuple of str
+        Allowed words for ``option`` arguments (lower case, canonical).
+    aliases : dict
+        More accepted words -> canonical option word.
+    """
+
+    name: str
+    help: str
+    unit: str = ""
+    kind: str = "number"
+    default: Any = REQUIRED
+    options: tuple = ()
+    aliases: dict = field(default_factory=dict)
+
+    @property
+    def optional(self) -> bool:
+        return self.default is not REQUIRED
+
+    def full_help(self) -> str:
+        """Help text with unit and, for options, the allowed words."""
+        text = self.help.rstrip(".")
+        if self.kind == "option":
+            text += ": " + ", ".join(f'"{o}"' for o in self.options)
+        if self.unit:
+            text += f" [{self.unit}]"
+        if self.optional and self.default is not None:
+            d = f'"{self.default}"' if isinstance(self.default, str) else f"{self.default:g}"
+            text += f" (default {d})"
+        return text + "."
+
+
+@dataclass(frozen=True)
+class CellFunction:
+    """One cell function of the catalogue.
+
+    Parameters
+    ----------
+    name : str
+        Excel name, DOMAIN_QUANTITY in capitals (``HX_LMTD``).
+    target : str
+        Dotted path of the core callable, ``"cellfuncs.heat_transfer.lmtd:lmtd"``.
+        It is called positionally with the coerced arguments in catalogue order.
+    category : str
+        Function-wizard category, ``"cellfuncs · heat transfer"``.
+    description : str
+        One line, <= 255 characters.
+    args : tuple of Arg
+    returns : str
+        What is returned, with its unit in brackets.
+    shape : str
+        ``"scalar"``; ``"row"`` or ``"column"`` when a 1-D result is returned
+        (for an array formula); ``"array"`` when the core returns rows itself.
+    """
+
+    name: str
+    target: str
+    category: str
+    description: str
+    args: tuple
+    returns: str
+    shape: str = "scalar"
+
+    def resolve(self) -> Callable:
+        """Import and return the core callable (cached per process)."""
+        fn = _RESOLVED.get(self.target)
+        if fn is None:
+            module, _, attr = self.target.partition(":")
+            fn = getattr(importlib.import_module(module), attr)
+            _RESOLVED[self.target] = fn
+        return fn
+
+
+_RESOLVED: dict = {}
