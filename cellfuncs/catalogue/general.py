@@ -1,5 +1,30 @@
-"""Catalogue entries of the general family."""
+"""Catalogue entries of general use: unit conversion and the package version."""
 
-from cellfuncs.catalogue.spec import Arg, CellFunction  # noqa: F401
+from cellfuncs.catalogue.spec import Arg, CellFunction
 
-ENTRIES: list = []
+CATEGORY = "cellfuncs · general"
+
+ENTRIES: list = [
+    CellFunction(
+        name="UNIT_CONVERT",
+        target="cellfuncs.units:convert",
+        category=CATEGORY,
+        description=(
+            "Converts a value between units (pint): temperatures with offsets, kWh, MJ, MMBtu, "
+            "therm, kcal, hp, bar, mbar, psi, inH2O; bar(g) and psig are gauge against 1.01325 bar."),
+        args=(
+            Arg("value", "The value to convert, in from_unit"),
+            Arg("from_unit", "Unit of value, e.g. \"°C\", \"kWh\", \"bar(g)\"", kind="text"),
+            Arg("to_unit", "Unit wanted, e.g. \"°F\", \"MJ\", \"psi\"", kind="text"),
+        ),
+        returns="the value in to_unit [to_unit]",
+    ),
+    CellFunction(
+        name="CELLFUNCS_VERSION",
+        target="cellfuncs.units:version",
+        category=CATEGORY,
+        description="The installed cellfuncs version, so that a tender workbook records what computed it.",
+        args=(),
+        returns="version text [-]",
+    ),
+]

@@ -1,0 +1,104 @@
+"""The one pint unit registry (built lazily) and the UNIT_CONVERT cell function.
+
+Trade units are defined on top of pint's defaults: ``bar(g)`` and ``psig``
+(gauge pressure against a standard atmosphere of 1.01325 bar), ``mbar``,
+``inH2O``, ``MMBtu``, ``therm``, ``kcal``.
+"""
+
+from __future__ import annotations
+
+from functools import lru_cache
+
+from cellfuncs.errors import CellInputError, CellTypeError
+
+__all__ = ["registry", "convert"]
+
+ATMOSPHERE_BAR = 1.01325  # standard atmosphere [bar]; gauge pressures refer to it
+
+# our spellings -> pint expressions; gauge units are handled apart
+_ALIASES = {
+    "°c": "degC", "degc": "degC", "c": "degC", "celsius": "degC",
+    "°f": "degF", "degf": "degF", "f": "degF", "fahrenheit": "degF",
+    "k": "kelvin", "kelvin": "kelvin",
+    "bar(a)": "bar", "bara": "bar", "bar": "bar", "mbar": "millibar",
+    "psi": "psi", "psia": "psi", "inh2o": "inch_H2O_39F", "mmh2o": "millimeter_H2O",
+    "kwh": "kilowatt_hour", "mwh": "megawatt_hour", "mj": "megajoule", "gj": "gigajoule",
+    "kj": "kilojoule", "mmbtu": "MMBtu", "btu": "Btu", "therm": "therm",
+    "kcal": "kilocalorie", "hp": "hp", "kw": "kilowatt", "mw": "megawatt", "w": "watt",
+    "m³/h": "m**3/hour", "m3/h": "m**3/hour", "kg/h": "kg/hour", "m²": "m**2", "m³": "m**3",
+}
+_GAUGE = {"bar(g)": "bar", "barg": "bar", "psig": "psi"}
+
+
+@lru_cache(maxsize=1)
+def registry():
+    """The shared pint UnitRegistry (built on first use, ~0.2 s)."""
+    import pint
+
+    ureg = pint.UnitRegistry(autoconvert_offset_to_baseunit=True)
+    ureg.define("MMBtu = 1e6 * Btu")
+    return ureg
+
+
+def _resolve(name: str, which: str):
+    key = name.strip()
+    low = key.lower()
+    if low in _GAUGE:
+        return _GAUGE[low], True
+    expr = _ALIASES.get(low, key)
+    ureg = registry()
+    try:
+        unit = ureg.Unit(expr)
+    except Exception:  # pint raises several types for bad names
+        raise CellTypeError(f"{which}: unknown unit {name!r}") from None
+    return unit, False
+
+
+@lru_cache(maxsize=512)
+def _plan(from_unit: str, to_unit: str):
+    u_from, g_from = _resolve(from_unit, "from_unit")
+    u_to, g_to = _resolve(to_unit, "to_unit")
+    ureg = registry()
+    a, b = ureg.Unit(u_from), ureg.Unit(u_to)
+    if a.dimensionality != b.dimensionality:
+        raise CellInputError(
+            f"to_unit: cannot convert {from_unit!r} ({a.dimensionality}) to {to_unit!r} ({b.dimensionality})")
+    return a, g_from, b, g_to
+
+
+def convert(value: float, from_unit: str, to_unit: str) -> float:
+    """Convert ``value`` from ``from_unit`` to ``to_unit``.
+
+    Parameters
+    ----------
+    value : float
+        The quantity in ``from_unit``. [from_unit]
+    from_unit, to_unit : str
+        Unit names: pint's names plus °C, °F, K, bar, bar(a), bar(g), mbar,
+        psi, psig, inH2O, kWh, MJ, MMBtu, therm, kcal, hp.  Gauge units
+        (``bar(g)``, ``psig``) refer to 1.01325 bar.
+
+    Returns
+    -------
+    float
+        The value in ``to_unit``. [to_unit]
+
+    References
+    ----------
+    .. [1] pint documentation, https://pint.readthedocs.io (unit definitions).
+    """
+    a, g_from, b, g_to = _plan(from_unit, to_unit)
+    ureg = registry()
+    q = ureg.Quantity(value, a)
+    if g_from:
+        q = q + ureg.Quantity(ATMOSPHERE_BAR, "bar")
+    if g_to:
+        q = q - ureg.Quantity(ATMOSPHERE_BAR, "bar")
+    return float(q.to(b).magnitude)
+
+
+def version() -> str:
+    """The installed cellfuncs version (for traceable tender workbooks)."""
+    from cellfuncs import __version__
+
+    return __version__
