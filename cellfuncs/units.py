@@ -21,10 +21,10 @@ _ALIASES = {
     "°f": "degF", "degf": "degF", "f": "degF", "fahrenheit": "degF",
     "k": "kelvin", "kelvin": "kelvin",
     "bar(a)": "bar", "bara": "bar", "bar": "bar", "mbar": "millibar",
-    "psi": "psi", "psia": "psi", "inh2o": "inch_H2O_39F", "mmh2o": "millimeter_H2O",
+    "psi": "psi", "psia": "psi", "inh2o": "inH2O", "mmh2o": "millimeter_H2O",
     "kwh": "kilowatt_hour", "mwh": "megawatt_hour", "mj": "megajoule", "gj": "gigajoule",
     "kj": "kilojoule", "mmbtu": "MMBtu", "btu": "Btu", "therm": "therm",
-    "kcal": "kilocalorie", "hp": "hp", "kw": "kilowatt", "mw": "megawatt", "w": "watt",
+    "kcal": "kilocalorie_IT", "hp": "hp", "kw": "kilowatt", "mw": "megawatt", "w": "watt",
     "m³/h": "m**3/hour", "m3/h": "m**3/hour", "kg/h": "kg/hour", "m²": "m**2", "m³": "m**3",
 }
 _GAUGE = {"bar(g)": "bar", "barg": "bar", "psig": "psi"}
@@ -36,8 +36,17 @@ def registry():
     import pint
 
     ureg = pint.UnitRegistry(autoconvert_offset_to_baseunit=True)
-    ureg.define("MMBtu = 1e6 * Btu")
+    ureg.define("MMBtu = 1e6 * Btu_it")
+    ureg.define("kilocalorie_IT = 1000 * international_calorie")
     return ureg
+
+
+# temperatures: exact affine maps to kelvin (pint's offset arithmetic leaves 1e-14 residues)
+_TEMPERATURE = {
+    "degC": (1.0, 273.15), "kelvin": (1.0, 0.0),
+    "degF": (5.0 / 9.0, 459.67 * 5.0 / 9.0), "degR": (5.0 / 9.0, 0.0),
+}
+_TEMPERATURE_NAMES = {"°r": "degR", "degr": "degR", "rankine": "degR"}
 
 
 def _resolve(name: str, which: str):
@@ -66,6 +75,12 @@ def _plan(from_unit: str, to_unit: str):
     return a, g_from, b, g_to
 
 
+def _temperature_key(name: str):
+    low = name.strip().lower()
+    key = _ALIASES.get(low, _TEMPERATURE_NAMES.get(low))
+    return key if key in _TEMPERATURE else None
+
+
 def convert(value: float, from_unit: str, to_unit: str) -> float:
     """Convert ``value`` from ``from_unit`` to ``to_unit``.
 
@@ -74,9 +89,10 @@ def convert(value: float, from_unit: str, to_unit: str) -> float:
     value : float
         The quantity in ``from_unit``. [from_unit]
     from_unit, to_unit : str
-        Unit names: pint's names plus °C, °F, K, bar, bar(a), bar(g), mbar,
-        psi, psig, inH2O, kWh, MJ, MMBtu, therm, kcal, hp.  Gauge units
-        (``bar(g)``, ``psig``) refer to 1.01325 bar.
+        Unit names: pint's names plus °C, °F, K, °R, bar, bar(a), bar(g), mbar,
+        psi, psig, inH2O (conventional, 249.0889 Pa), kWh, MJ, MMBtu (10⁶ Btu_IT), therm (10⁵ Btu_IT),
+        kcal (international-table calorie, 4.1868 kJ), hp (mechanical, 550 ft·lbf/s).
+        Gauge units (``bar(g)``, ``psig``) refer to 1.01325 bar.
 
     Returns
     -------
@@ -87,6 +103,12 @@ def convert(value: float, from_unit: str, to_unit: str) -> float:
     ----------
     .. [1] pint documentation, https://pint.readthedocs.io (unit definitions).
     """
+    ta, tb = _temperature_key(from_unit), _temperature_key(to_unit)
+    if ta and tb:
+        (fa, oa), (fb, ob) = _TEMPERATURE[ta], _TEMPERATURE[tb]
+        kelvin = value * fa + oa
+        out = (kelvin - ob) / fb
+        return float(round(out, 12)) if abs(out) < 1e6 else out
     a, g_from, b, g_to = _plan(from_unit, to_unit)
     ureg = registry()
     q = ureg.Quantity(value, a)
@@ -94,7 +116,8 @@ def convert(value: float, from_unit: str, to_unit: str) -> float:
         q = q + ureg.Quantity(ATMOSPHERE_BAR, "bar")
     if g_to:
         q = q - ureg.Quantity(ATMOSPHERE_BAR, "bar")
-    return float(q.to(b).magnitude)
+    out = float(q.to(b).magnitude)
+    return float(f"{out:.15g}")  # drop last-digit noise of the factor chain
 
 
 def version() -> str:

@@ -108,6 +108,10 @@ class CellFunction:
     shape : str
         ``"scalar"``; ``"row"`` or ``"column"`` when a 1-D result is returned
         (for an array formula); ``"array"`` when the core returns rows itself.
+    example : tuple
+        Optional: one valid set of argument values as a cell would pass them
+        (ranges as lists of rows).  The reliability test mutates it one
+        argument at a time; the docs show it.
     """
 
     name: str
@@ -117,6 +121,7 @@ class CellFunction:
     args: tuple
     returns: str
     shape: str = "scalar"
+    example: tuple = ()
 
     def resolve(self) -> Callable:
         """Import and return the core callable (cached per process)."""
