@@ -15,8 +15,7 @@ import sys
 __all__ = ["main"]
 
 
-class UsageError(Exception):
-    """Unusable input: reported as one line, exit code 2."""
+from cellfuncs.errors import UsageError
 
 
 def _parse_value(text: str):

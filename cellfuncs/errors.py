@@ -17,7 +17,12 @@ __all__ = [
     "check_range",
     "check_finite",
     "fmt",
+    "UsageError",
 ]
+
+
+class UsageError(Exception):
+    """Unusable command-line input (missing file, bad --set): one line, exit code 2."""
 
 
 class CellInputError(ValueError):

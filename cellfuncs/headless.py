@@ -294,6 +294,8 @@ def load_model(path: str, sets: dict | None = None):
     try:
         with _quiet():
             model = formulas.ExcelModel().loads(calc_path).finish(complete=False)
+    except BookError:
+        raise
     except Exception as exc:  # noqa: BLE001
         shutil.rmtree(tmpdir, ignore_errors=True)
         raise BookError(f"{path}: the formula engine cannot load it ({type(exc).__name__})") from None

@@ -1,0 +1,220 @@
+"""``cellfuncs cases``: run a workbook over the rows of a CSV file (batch what-if).
+
+Each CSV column header names an input of the workbook (a defined name or
+``Sheet!A1``), each row is a case.  The outputs are the workbook's defined
+names starting with ``out_`` unless ``--outputs`` lists others.  The workbook
+is loaded and compiled once (per worker process), not per case.
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import os
+import shutil
+import sys
+import tempfile
+
+from cellfuncs.xlsx import BookError, ErrorText
+
+__all__ = ["run", "CaseRunner"]
+
+
+class CaseRunner:
+    """A workbook compiled for fixed inputs and outputs.
+
+    Parameters
+    ----------
+    book : str
+        The workbook.
+    inputs : list of str
+        Input targets (defined names or ``Sheet!A1``).
+    outputs : list of str or None
+        Output targets; ``None`` = the defined names starting with ``out_``.
+    """
+
+    def __init__(self, book: str, inputs: list, outputs: list | None = None):
+        from cellfuncs import headless
+
+        self.book = book
+        model, info = headless.load_model(book)
+        shutil.rmtree(info["tmpdir"], ignore_errors=True)
+        names, sheets = info["names"], info["sheets"]
+        if outputs is None:
+            outputs = sorted((n for n in names if n.lower().startswith("out_")), key=str.lower)
+            outputs = [self._spelled(book, n) for n in outputs]
+            if not outputs:
+                raise BookError(f"{os.path.basename(book)}: no defined names starting with out_; "
+                                "list outputs with --outputs")
+        self.inputs, self.outputs = list(inputs), list(outputs)
+        self.input_cells = [self._where(t, names, sheets, "input column") for t in self.inputs]
+        self.output_cells = [self._where(t, names, sheets, "output") for t in self.outputs]
+        self.numeric_inputs = self._numeric(book, self.input_cells)
+
+        def key(cell):
+            return f"'[book.xlsx]{cell[0].upper()}'!{cell[1]}"
+
+        with headless._quiet():
+            self.fn = model.compile(inputs=[key(c) for c in self.input_cells],
+                                    outputs=[key(c) for c in self.output_cells])
+
+    @staticmethod
+    def _spelled(book, upper_name):
+        import openpyxl
+
+        wb = openpyxl.load_workbook(book, read_only=False)
+        for n in wb.defined_names:
+            if n.upper() == upper_name:
+                return n
+        return upper_name
+
+    @staticmethod
+    def _where(target, names, sheets, what):
+        from cellfuncs import headless
+
+        where = headless.resolve_target(target, names, sheets)
+        if where is None:
+            raise BookError(f"{what} {target!r}: no such cell or defined name in the workbook")
+        return where
+
+    @staticmethod
+    def _numeric(book, cells):
+        import openpyxl
+
+        wb = openpyxl.load_workbook(book)
+        out = []
+        for sheet, ref in cells:
+            v = wb[sheet][ref].value
+            out.append(isinstance(v, (int, float)) and not isinstance(v, bool))
+        return out
+
+    def parse_row(self, row: dict, line: int) -> list:
+        vals = []
+        for target, numeric in zip(self.inputs, self.numeric_inputs):
+            text = (row.get(target) or "").strip()
+            if numeric:
+                try:
+                    vals.append(float(text))
+                except ValueError:
+                    raise BookError(f"line {line}, column {target}: {text!r} is not a number "
+                                    "(this input holds a number)") from None
+            else:
+                vals.append(text)
+        return vals
+
+    def run_case(self, values: list) -> list:
+        """Output values of one case: float, str, bool or ErrorText (with .message)."""
+        from cellfuncs import headless
+
+        with headless._quiet():
+            res = self.fn(*values)
+        if not isinstance(res, (list, tuple)):
+            res = [res]
+        out = []
+        for r in res:
+            arr = getattr(r, "value", r)
+            if hasattr(arr, "shape") and getattr(arr, "ndim", 0) >= 1:
+                arr = arr.flat[0]
+            out.append(headless.cell_value(arr))
+        return out
+
+
+_WORKER: dict = {}
+
+
+def _init_worker(book, inputs, outputs):
+    _WORKER["runner"] = CaseRunner(book, inputs, outputs)
+
+
+def _work(values):
+    return _WORKER["runner"].run_case(values)
+
+
+def _read_cases(path):
+    if not os.path.isfile(path):
+        raise BookError(f"{path}: no such file")
+    try:
+        with open(path, newline="", encoding="utf-8-sig") as fh:
+            reader = csv.DictReader(fh)
+            header = reader.fieldnames
+            rows = list(reader)
+    except (UnicodeDecodeError, csv.Error) as exc:
+        raise BookError(f"{path}: not a readable CSV file ({exc})") from None
+    if not header:
+        raise BookError(f"{path}: no header row (one column per workbook input)")
+    if any(not h or not h.strip() for h in header):
+        raise BookError(f"{path}: a column has an empty header")
+    return [h.strip() for h in header], [{(k or "").strip(): v for k, v in r.items()} for r in rows]
+
+
+def run(ns) -> int:
+    """Entry point of ``cellfuncs cases`` (argparse namespace)."""
+    from cellfuncs.cli import _same_file
+    from cellfuncs.errors import UsageError
+
+    out = ns.output
+    for src in (ns.book, ns.cases_csv):
+        if _same_file(src, out):
+            raise UsageError(f"-o {out}: would write over an input file; choose another file")
+    if ns.workers < 1:
+        raise UsageError(f"--workers {ns.workers}: must be 1 or more")
+    outputs = [o.strip() for o in ns.outputs.split(",") if o.strip()] if ns.outputs else None
+    try:
+        header, rows = _read_cases(ns.cases_csv)
+        runner = CaseRunner(ns.book, header, outputs)
+        cases = [runner.parse_row(r, i + 2) for i, r in enumerate(rows)]
+    except BookError as exc:
+        raise UsageError(str(exc)) from None
+
+    progress = None
+    if sys.stderr.isatty():
+        try:
+            from tqdm import tqdm
+
+            progress = tqdm(total=len(cases), file=sys.stderr, unit="case")
+        except ImportError:  # pragma: no cover
+            progress = None
+
+    results = []
+    if ns.workers == 1 or len(cases) < 2:
+        for vals in cases:
+            results.append(runner.run_case(vals))
+            if progress:
+                progress.update()
+    else:
+        import multiprocessing as mp
+
+        chunk = max(1, len(cases) // (ns.workers * 8))
+        with mp.get_context("fork").Pool(ns.workers, _init_worker,
+                                         (ns.book, runner.inputs, runner.outputs)) as pool:
+            for r in pool.imap(_work, cases, chunksize=chunk):
+                results.append(r)
+                if progress:
+                    progress.update()
+    if progress:
+        progress.close()
+
+    buf = io.StringIO()
+    w = csv.writer(buf, lineterminator="\n")
+    w.writerow(runner.inputs + runner.outputs)
+    n_err = 0
+    for i, (raw, vals, outs) in enumerate(zip(rows, cases, results)):
+        cells = []
+        for name, o in zip(runner.outputs, outs):
+            if isinstance(o, ErrorText):
+                n_err += 1
+                print(f"case {i + 1}, {name}: {o} {getattr(o, 'message', '')}".rstrip(), file=sys.stderr)
+                cells.append(str(o))
+            else:
+                cells.append(repr(o) if isinstance(o, float) else o)
+        w.writerow([raw.get(h, "") for h in runner.inputs] + cells)
+    folder = os.path.dirname(os.path.abspath(out)) or "."
+    if not os.path.isdir(folder):
+        raise UsageError(f"-o {out}: folder {folder} does not exist")
+    fd, tmp = tempfile.mkstemp(prefix=".cellfuncs-", suffix=".csv", dir=folder)
+    with os.fdopen(fd, "w", encoding="utf-8", newline="") as fh:
+        fh.write(buf.getvalue())
+    os.replace(tmp, out)
+    print(f"{len(cases)} cases, {len(runner.outputs)} outputs, {n_err} error cells; wrote {out}",
+          file=sys.stderr)
+    return 0
