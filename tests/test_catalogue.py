@@ -45,3 +45,22 @@ def test_entry_is_complete(entry):
 def test_example_computes(entry):
     res = getattr(excel, entry.name)(*entry.example)
     assert not (isinstance(res, str) and res.startswith("#")), res
+
+
+def test_validation_md_is_current():
+    from cellfuncs.validation import validation_markdown
+
+    path = ROOT / "docs" / "validation.md"
+    assert path.read_text(encoding="utf-8") == validation_markdown(ROOT), (
+        "docs/validation.md is stale: run `python tools/make_validation_md.py`")
+
+
+def test_every_vectors_file_names_its_sources():
+    from vectors import REQUIRED_COLUMNS, VECTOR_DIR, load
+
+    for path in VECTOR_DIR.glob("*.csv"):
+        rows = load(path.stem)
+        assert rows, path.name
+        for r in rows:
+            for col in REQUIRED_COLUMNS:
+                assert r[col] not in (None, ""), f"{path.name}: empty {col}"

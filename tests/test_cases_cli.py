@@ -1,0 +1,70 @@
+"""`cellfuncs cases`: a workbook run over the rows of a CSV (expected values: ht.LMTD)."""
+
+import csv
+import subprocess
+import sys
+
+import ht
+import openpyxl
+import pytest
+from openpyxl.workbook.defined_name import DefinedName
+
+
+def _run(*args):
+    return subprocess.run([sys.executable, "-m", "cellfuncs.cli", *args], capture_output=True,
+                          text=True, timeout=300)
+
+
+@pytest.fixture()
+def book(tmp_path):
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws.title = "Inputs"
+    for r, (name, v) in enumerate([("t_hot_in", 100), ("t_cold_out", 40.2), ("flow", "counter")], 1):
+        ws.cell(r, 2, v)
+        wb.defined_names[name] = DefinedName(name, attr_text=f"Inputs!$B${r}")
+    c = wb.create_sheet("Calc")
+    c["B1"] = "=HX_LMTD(t_hot_in,60,30,t_cold_out,flow)"
+    c["B2"] = "=B1*2"
+    wb.defined_names["out_lmtd"] = DefinedName("out_lmtd", attr_text="Calc!$B$1")
+    wb.defined_names["out_double"] = DefinedName("out_double", attr_text="Calc!$B$2")
+    path = tmp_path / "book.xlsx"
+    wb.save(path)
+    return path
+
+
+def _write(path, rows):
+    with open(path, "w", newline="") as fh:
+        csv.writer(fh).writerows(rows)
+
+
+@pytest.mark.parametrize("workers", ["1", "2"])
+def test_cases_values_and_errors(book, tmp_path, workers):
+    cases = tmp_path / "cases.csv"
+    _write(cases, [["t_hot_in", "t_cold_out", "flow"], [100, 40.2, "counter"], [100, 40.2, "parallel"],
+                   [120, 50, "counter"], [50, 40.2, "counter"]])
+    out = tmp_path / "res.csv"
+    p = _run("cases", str(book), str(cases), "-o", str(out), "--workers", workers)
+    assert p.returncode == 0, p.stderr
+    rows = list(csv.DictReader(open(out)))
+    assert list(rows[0]) == ["t_hot_in", "t_cold_out", "flow", "out_double", "out_lmtd"]
+    assert float(rows[0]["out_lmtd"]) == pytest.approx(ht.LMTD(100, 60, 30, 40.2), rel=1e-9)
+    assert float(rows[1]["out_lmtd"]) == pytest.approx(39.752511, rel=1e-6)  # Bergman Ex. 11.1
+    assert float(rows[2]["out_double"]) == pytest.approx(2 * ht.LMTD(120, 60, 30, 50), rel=1e-9)
+    assert rows[3]["out_lmtd"] == "#NUM!"        # 50 °C hot inlet is below the cold outlet: a cross
+    assert "case 4, out_lmtd: #NUM!" in p.stderr
+
+
+def test_cases_bad_input_exit_2(book, tmp_path):
+    out = tmp_path / "res.csv"
+    unknown = tmp_path / "u.csv"
+    _write(unknown, [["no_such_input"], [1]])
+    text = tmp_path / "t.csv"
+    _write(text, [["t_hot_in"], ["hot"]])
+    for csv_path in (unknown, text, tmp_path / "missing.csv"):
+        p = _run("cases", str(book), str(csv_path), "-o", str(out))
+        assert p.returncode == 2, p.stderr
+        assert len(p.stderr.strip().splitlines()) == 1
+    p = _run("cases", str(book), str(unknown), "-o", str(unknown))
+    assert p.returncode == 2
+    assert not out.exists()
