@@ -155,14 +155,23 @@ def _one(arg, v):
     raise RuntimeError(f"unknown argument kind {kind!r}")  # pragma: no cover
 
 
+_isfinite = math.isfinite
+
+
 def coerce_args(entry: CellFunction, values: tuple) -> list:
     """Coerce raw cell values (missing trailing ones = blank) to core inputs."""
     args = entry.args
-    if len(values) > len(args):
-        raise CellTypeError(f"{entry.name}: takes at most {len(args)} arguments, got {len(values)}")
+    n = len(values)
+    if n > len(args):
+        raise CellTypeError(f"{entry.name}: takes at most {len(args)} arguments, got {n}")
     out = []
     for i, arg in enumerate(args):
-        out.append(_one(arg, values[i] if i < len(values) else None))
+        v = values[i] if i < n else None
+        # fast path: what Excel hands over for a number cell
+        if type(v) is float and arg.kind == "number" and _isfinite(v):
+            out.append(v)
+        else:
+            out.append(_one(arg, v))
     return out
 
 
@@ -187,6 +196,10 @@ def _check_out(entry, v):
 
 def result_to_cells(entry: CellFunction, result):
     """A scalar, or a list of rows (2-D) for multi-cell results."""
+    if type(result) is float:
+        if _isfinite(result):
+            return result
+        raise FloatingPointError(f"{entry.name} produced {result}")
     if isinstance(result, (list, tuple)):
         if result and isinstance(result[0], (list, tuple)):
             return [[_check_out(entry, c) for c in row] for row in result]
