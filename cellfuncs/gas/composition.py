@@ -42,8 +42,10 @@ __all__ = [
     "Composition",
     "parse_composition",
     "accepted_names",
+    "cell_components",
     "component_id",
     "display_name",
+    "paired_amounts",
 ]
 
 #: canonical component ids in the order of ISO 6976:2016 Table 1 (as used here)
@@ -126,6 +128,11 @@ def accepted_names(every_spelling: bool = False) -> list:
             if n not in out:
                 out.append(n)
     return out
+
+
+def cell_components() -> list:
+    """GAS_COMPONENTS: the accepted component names, one column (drop-down list). [-]"""
+    return accepted_names()
 
 
 def display_name(cid: str) -> str:
@@ -421,3 +428,70 @@ def parse_composition(components, fractions=None) -> Composition:
     flat_c = tuple((c,) if not isinstance(c, (tuple, list)) else tuple(c) for c in comps)
     flat_f = tuple((f,) if not isinstance(f, (tuple, list)) else tuple(f) for f in fr)
     return _parse_ranges(flat_c, flat_f)
+
+
+def paired_amounts(components, values, arg: str = "u_fractions") -> dict:
+    """Amounts given alongside ``components`` (e.g. uncertainties), by component id.
+
+    Parameters
+    ----------
+    components : range, list or dict
+        The names range as given to :func:`parse_composition` (a two-column
+        range counts by its first column).
+    values : range, list or dict
+        Same shape as the names (or as ``components`` itself); blank cells count as 0.
+    arg : str
+        Argument name for error messages.
+
+    Returns
+    -------
+    amounts : dict
+        ``{id: value}`` as given (not normalised). [unit of the input]
+
+    Raises
+    ------
+    CellInputError
+        Shapes differ, negative value, unknown or duplicate name.
+    """
+    if isinstance(components, dict):
+        if not isinstance(values, dict):
+            raise CellTypeError(f"{arg}: must be a dict when components is a dict")
+        pairs = [(f"row {k}", n, values.get(n)) for k, n in enumerate(components, 1)]
+        extra = set(values) - set(components)
+        if extra:
+            raise CellInputError(f"{arg}: {sorted(extra)} are not among the components")
+    else:
+        if isinstance(components, (list, tuple)) and not _is_range(components):
+            components = tuple((c,) for c in components)
+        if isinstance(values, (list, tuple)) and not _is_range(values):
+            values = tuple((v,) for v in values)
+        if isinstance(values, (int, float)) and not isinstance(values, bool):
+            values = ((float(values),),)
+        if not (_is_range(components) and _is_range(values)):
+            raise CellTypeError(f"{arg}: must be a range of numbers")
+        (nr, nc), (vr, vc) = _shape(components), _shape(values)
+        if nc == 2 and vc == 1 and nr == vr:
+            components = tuple((row[0] if row else None,) for row in components)
+            nc = 1
+        names = list(_cells(components))
+        vals = [cell for _, cell in _cells(values)]
+        one_d = (nr == 1 or nc == 1) and (vr == 1 or vc == 1)
+        if (nr, nc) != (vr, vc) and not (one_d and len(names) == len(vals)):
+            raise CellInputError(f"{arg}: {vr} row(s) × {vc} column(s) does not match components "
+                                 f"{nr} row(s) × {nc} column(s)")
+        pairs = [(w, n, v) for (w, n), v in zip(names, vals)]
+    out: dict = {}
+    for where, ncell, vcell in pairs:
+        name = _name(ncell, "components", where)
+        v = _amount(vcell, arg, where)
+        if name is None:
+            if v:
+                raise CellInputError(f"{arg}: {where} has {fmt(v)} but no component name")
+            continue
+        cid = component_id(name, "components", where)
+        if cid in out:
+            raise CellInputError(f'components: {where} "{name}" is given twice ({display_name(cid)})')
+        if v is not None and v < 0:
+            raise CellInputError(f"{arg}: {where} ({name}) value {fmt(v)} is negative")
+        out[cid] = v or 0.0
+    return out
