@@ -30,7 +30,6 @@ nC8H18, H2, CO, H2S, NH3, H2O, He, Ar, N2, O2, CO2``.
 
 from __future__ import annotations
 
-import difflib
 import math
 from dataclasses import dataclass, field
 from functools import lru_cache
@@ -141,6 +140,8 @@ def display_name(cid: str) -> str:
 
 
 def _suggest(name: str) -> str:
+    import difflib
+
     key = _key(name)
     for cutoff in (0.75, 0.5):
         hits = difflib.get_close_matches(key, list(_SPELLING), n=1, cutoff=cutoff)
@@ -250,8 +251,8 @@ def _name(cell, arg: str, where: str):
     if isinstance(cell, str):
         s = cell.strip()
         return s or None
-    raise CellTypeError(f"{arg}: {where} holds {fmt(cell) if isinstance(cell, float) else cell!r}"
-                        ", a component name is needed")
+    shown = fmt(float(cell)) if isinstance(cell, (int, float)) else repr(cell)
+    raise CellTypeError(f"{arg}: {where} holds {shown}, a component name is needed")
 
 
 def _finish(pairs: tuple, name_arg: str, amount_arg: str) -> Composition:
@@ -402,6 +403,8 @@ def parse_composition(components, fractions=None) -> Composition:
     if isinstance(components, dict):
         if fractions is not None:
             raise CellInputError("fractions: must be omitted when components is a dict")
+        if any(isinstance(v, bool) for v in components.values()):
+            raise CellTypeError("components: dict values must be numbers, not True/False")
         try:
             return _parse_pairs(tuple(components.items()))
         except TypeError:  # unhashable amounts
@@ -411,6 +414,12 @@ def parse_composition(components, fractions=None) -> Composition:
     if isinstance(fractions, (int, float)) and not isinstance(fractions, bool):
         fractions = ((float(fractions),),)
     if _is_range(components) and (fractions is None or _is_range(fractions)):
+        # True == 1.0 for the cache key: reject booleans before the cache is asked
+        for rng, arg in ((components, "components"), (fractions or (), "fractions")):
+            for row in rng:
+                for cell in row:
+                    if isinstance(cell, bool):
+                        raise CellTypeError(f"{arg}: {cell!r} is not a name or a number")
         try:
             return _parse_ranges(components, fractions)
         except TypeError as exc:  # unhashable cells
