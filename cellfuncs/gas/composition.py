@@ -30,6 +30,7 @@ nC8H18, H2, CO, H2S, NH3, H2O, He, Ar, N2, O2, CO2``.
 
 from __future__ import annotations
 
+import functools
 import math
 from dataclasses import dataclass, field
 from functools import lru_cache
@@ -42,6 +43,7 @@ __all__ = [
     "parse_composition",
     "accepted_names",
     "cell_components",
+    "cell_cached",
     "component_id",
     "display_name",
     "paired_amounts",
@@ -195,6 +197,12 @@ class Composition:
     total: float = field(default=1.0, compare=False)
     unit: str = field(default="fraction", compare=False)
 
+    def __post_init__(self):
+        object.__setattr__(self, "_hash", hash((self.ids, self.x)))
+
+    def __hash__(self) -> int:  # computed once: compositions key many caches
+        return self._hash
+
     def get(self, cid: str, default: float = 0.0) -> float:
         """Mole fraction of a component id (``default`` if absent). [-]"""
         try:
@@ -215,6 +223,29 @@ class Composition:
 
     def __contains__(self, cid) -> bool:
         return cid in self.ids
+
+
+def cell_cached(fn):
+    """Cache a cell wrapper's results on its (hashable) arguments.
+
+    A sheet calls the same function on the same gas range many times; the
+    adapters hand over ranges as tuples, so the whole call is a cache key.
+    Errors are not cached.  Unhashable arguments (lists from Python callers)
+    bypass the cache.
+    """
+    cached = lru_cache(maxsize=4096)(fn)
+
+    @functools.wraps(fn)
+    def wrapper(*args, **kwargs):
+        try:
+            return cached(*args, **kwargs)
+        except TypeError as exc:
+            if "unhashable" not in str(exc):
+                raise
+            return fn(*args, **kwargs)
+
+    wrapper.cache_clear = cached.cache_clear
+    return wrapper
 
 
 # ---------------------------------------------------------------------------
