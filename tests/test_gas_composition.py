@@ -60,6 +60,13 @@ def test_blank_rows_and_blank_amounts_skipped():
     assert c.ids == ("CH4", "N2")
 
 
+def test_heading_row_skipped():
+    rng = (("Component", "mol%"), ("CH4", 95.0), ("N2", 5.0))
+    assert parse_composition(rng).ids == ("CH4", "N2")
+    with pytest.raises(CellInputError, match='^components: row 2 amount "mol%" is not a number'):
+        parse_composition((("CH4", 95.0), ("Component", "mol%"), ("N2", 5.0)))
+
+
 def test_cached():
     rng = (("CH4", 95.0), ("N2", 5.0))
     assert parse_composition(rng) is parse_composition((("CH4", 95.0), ("N2", 5.0)))

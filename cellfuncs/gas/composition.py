@@ -17,7 +17,8 @@ Rules
   by the sum; a sum more than 2 % away from 100 % is an error stating the sum.
   Within that tolerance the composition is normalised.
 * Blank rows are skipped; a name with a blank amount counts as absent (so a
-  template listing every component can be filled in partly).
+  template listing every component can be filled in partly).  A first row of
+  two texts that are neither a component nor a number is taken as a heading.
 * A negative amount, a duplicate component or an unknown name is an error
   naming the row, with the closest accepted name suggested.
 * ``"C6+"`` is taken as n-hexane (common practice for a lumped hexanes-plus
@@ -286,9 +287,22 @@ def _name(cell, arg: str, where: str):
     raise CellTypeError(f"{arg}: {where} holds {shown}, a component name is needed")
 
 
+def _is_header(ncell, acell) -> bool:
+    """First row with text in both cells, neither a component nor a number."""
+    if not (isinstance(ncell, str) and isinstance(acell, str)) or _key(ncell) in _LOOKUP:
+        return False
+    try:
+        float(acell.replace(",", ".").rstrip("%").strip())
+    except ValueError:
+        return True
+    return False
+
+
 def _finish(pairs: tuple, name_arg: str, amount_arg: str) -> Composition:
     """pairs: ((where, name_cell, amount_cell), ...) -> Composition."""
     seen: dict = {}
+    if pairs and _is_header(pairs[0][1], pairs[0][2]):
+        pairs = pairs[1:]  # a heading row selected with the data ("component", "mol%")
     for where, ncell, acell in pairs:
         name = _name(ncell, name_arg, where)
         amount = _amount(acell, amount_arg, where)
