@@ -341,7 +341,9 @@ def solution_values(solution, info) -> Recalc:
             out.values[(sheet, ref)] = cell_value(v)
         got = out.values[(sheet, ref)]
         if isinstance(got, ErrorText):
-            out.messages[(sheet, ref)] = f"{got} {got.message or '(from the formula itself or a cell it uses)'}"
+            default = ("(unknown function or name)" if str(got) == "#NAME?"
+                       else "(from the formula itself or a cell it uses)")
+            out.messages[(sheet, ref)] = f"{got} {got.message or default}"
     return out
 
 

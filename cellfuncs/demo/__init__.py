@@ -15,7 +15,7 @@ import tempfile
 __all__ = ["WORKBOOKS", "build_all", "build_one"]
 
 #: demo modules, in the order they are built
-WORKBOOKS = ("hx_sizing",)
+WORKBOOKS = ("gas_quality", "hx_sizing")
 
 
 def build_one(module_name: str, out_dir: str):

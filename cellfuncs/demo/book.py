@@ -197,6 +197,37 @@ class DemoBook:
         self.name(name, f"Inputs!$B${first}:${end_col}${last}")
         return name
 
+    def input_table(self, label, header, rows, names, unit="", note=""):
+        """A table of inputs: first column labels (column B), then one named column per name.
+
+        ``names[i]`` names column i of the table (``None`` leaves it unnamed); returns the
+        first and last row numbers.
+        """
+        ws = self.inputs
+        ws.cell(self._in_row, 1, label).font = _HEAD
+        if note:
+            ws.cell(self._in_row, 4 + len(header), note)
+        self._in_row += 1
+        for j, h in enumerate(header):
+            ws.cell(self._in_row, 2 + j, h).font = _HEAD
+        if unit:
+            ws.cell(self._in_row, 2 + len(header), unit)
+        self._in_row += 1
+        first = self._in_row
+        for row in rows:
+            for j, v in enumerate(row):
+                c = ws.cell(self._in_row, 2 + j, v)
+                c.border = _BOX
+                if j > 0:
+                    c.fill = _INPUT_FILL
+            self._in_row += 1
+        last = self._in_row - 1
+        for j, name in enumerate(names):
+            if name:
+                col = chr(ord("B") + j)
+                self.name(name, f"Inputs!${col}${first}:${col}${last}")
+        return first, last
+
     def input_caution(self):
         self._in_row += 1
         for line in CAUTION_LINES:
