@@ -129,22 +129,31 @@ class Nasa7:
     def t_from_h(self, h: float, guess: float = 400.0, tol: float = 1e-9) -> float:
         """Temperature [K] at which ``self.h(T) == h`` (Newton; cp > 0 makes it unique)."""
         T = guess
-        for _ in range(50):
+        for _ in range(30):
             dT = (self.h(T) - h) / self.cp(T)
             T -= dT
             if abs(dT) < tol:
                 return T
-        raise CellInputError(f"h: no temperature found for enthalpy {h:.6g} J/mol")
+        return self._at_break(self.h, self._hl, h, "h", "enthalpy", "J/mol")
 
     def t_from_s0(self, s0: float, guess: float = 400.0, tol: float = 1e-9) -> float:
         """Temperature [K] at which ``self.s0(T) == s0`` (Newton on ds0/dT = cp/T)."""
         T = guess
-        for _ in range(50):
+        for _ in range(30):
             dT = (self.s0(T) - s0) * T / self.cp(T)
             T -= dT
             if abs(dT) < tol:
                 return T
-        raise CellInputError(f"s0: no temperature found for entropy {s0:.6g} J/(mol·K)")
+        return self._at_break(self.s0, self._sl, s0, "s0", "entropy", "J/(mol·K)")
+
+    def _at_break(self, fn, low_coeffs, target, name, what, unit) -> float:
+        # the two ranges of a polynomial meet at 1000 K with a jump of ~1e-6;
+        # a target inside that jump makes Newton cycle: the answer is 1000 K
+        hi = fn(T_MID)
+        lo = fn(T_MID * (1 - 1e-12))
+        if min(lo, hi) - 1e-6 * abs(hi) <= target <= max(lo, hi) + 1e-6 * abs(hi):
+            return T_MID
+        raise CellInputError(f"{name}: no temperature found for {what} {target:.6g} {unit}")
 
     def __repr__(self) -> str:  # pragma: no cover - cosmetic
         return f"Nasa7(M={self.molar_mass:.5g} g/mol)"
