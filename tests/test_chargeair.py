@@ -306,3 +306,24 @@ def test_results_are_finite():
               _call("CAC_CONDENSATE", 0.0, 10.0, 2.0, 1.8, comps, fracs, 25.0, 0.3),
               _call("TURBO_T_OUT", -40.0, 0.9, 9.0, 0.6, 1.8, comps, fracs, -40.0, 1.0)):
         assert math.isfinite(v)
+
+
+def test_catalogue_entries_match_the_cores():
+    """Every charge-air and knock entry resolves; its arguments are the core's, in order."""
+    import inspect
+
+    from cellfuncs.catalogue import entries
+
+    names = set()
+    for e in entries():
+        if e.category not in ("cellfuncs · charge air", "cellfuncs · knock"):
+            continue
+        names.add(e.name)
+        params_ = list(inspect.signature(e.resolve()).parameters)
+        assert [a.name for a in e.args] == params_[:len(e.args)], e.name
+        assert len(e.description) <= 255 and "[" in e.returns
+        for a in e.args:
+            if a.kind == "option":
+                assert a.default in a.options and all(o == o.lower() for o in a.options)
+    assert names == {"CAC_MIXTURE_FLOW", "TURBO_T_OUT", "CAC_DEWPOINT", "CAC_DUTY",
+                     "CAC_CONDENSATE", "KNOCK_MARGIN", "KNOCK_T_LIMIT", "KNOCK_MN_REQUIRED"}
