@@ -88,7 +88,7 @@ def t_out(t_in, p_in_bar, p_out_bar, eta_is, lambda_=None, comp=None,
     if p2 > 10.0 * p1:
         raise CellInputError(f"p_out_bar: {fmt(p2)} bar is above 10 × p_in_bar "
                              f"({fmt(10 * p1)} bar; pressure ratio at most 10)")
-    eta = check_range("eta_is", eta_is, 0.0, 1.0, "-", lo_open=True)
+    eta = check_range("eta_is", eta_is, 0.0, 1.0, "", lo_open=True)
     # the ambient humidity at the compressor inlet pressure; a later stage (inlet
     # outside 0.5-1.2 bar) carries the water of ambient air at 1.0 bar
     p_amb = p1 if 0.5 <= p1 <= 1.2 else 1.0

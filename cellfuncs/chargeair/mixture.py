@@ -121,13 +121,13 @@ class ChargeMixture:
 
 def check_lambda(lambda_) -> float:
     """λ must be above 0 (rich mixtures allowed here) and at most 20. [-]"""
-    return check_range("lambda_", lambda_, 0.0, LAMBDA_MAX, "-", lo_open=True)
+    return check_range("lambda_", lambda_, 0.0, LAMBDA_MAX, "", lo_open=True)
 
 
 def check_ambient(t_ambient, rh_ambient, p_ambient_bar) -> tuple:
     """Validate the ambient state; returns (t [°C], rh [-], p [bar])."""
     t = check_range("t_ambient", t_ambient, -50.0, 60.0, "°C")
-    rh = check_range("rh_ambient", rh_ambient, 0.0, 1.0, "-")
+    rh = check_range("rh_ambient", rh_ambient, 0.0, 1.0, "")
     p = check_range("p_ambient_bar", p_ambient_bar, 0.5, 1.2, "bar")
     return t, rh, p
 

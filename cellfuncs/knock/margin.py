@@ -84,18 +84,18 @@ _OUTPUTS = ("k", "mn")
 def _checked(p_boost_bar, compression_ratio, t_ref, p_ref_bar, mn_ref, compression_ratio_ref,
              k_per_mn, n_poly, activation_k, pressure_exp) -> tuple:
     p = check_range("p_boost_bar", p_boost_bar, 0.5, 10.0, "bar")
-    eps = check_range("compression_ratio", compression_ratio, 4.0, 25.0, "-")
+    eps = check_range("compression_ratio", compression_ratio, 4.0, 25.0, "")
     tr = check_range("t_ref", t_ref, -30.0, 150.0, "°C")
     pr = check_range("p_ref_bar", p_ref_bar, 0.5, 10.0, "bar")
-    mnr = check_range("mn_ref", mn_ref, 0.0, 150.0, "-")
+    mnr = check_range("mn_ref", mn_ref, 0.0, 150.0, "")
     eps_r = eps if compression_ratio_ref is None else check_range(
-        "compression_ratio_ref", compression_ratio_ref, 4.0, 25.0, "-")
+        "compression_ratio_ref", compression_ratio_ref, 4.0, 25.0, "")
     k = check_range("k_per_mn", K_DEFAULT if k_per_mn is None else k_per_mn, 0.05, 10.0, "K")
-    n = check_range("n_poly", N_DEFAULT if n_poly is None else n_poly, 1.0, 1.6, "-")
+    n = check_range("n_poly", N_DEFAULT if n_poly is None else n_poly, 1.0, 1.6, "")
     b = check_range("activation_k", B_DEFAULT if activation_k is None else activation_k,
                     1000.0, 100000.0, "K")
     a = check_range("pressure_exp", A_DEFAULT if pressure_exp is None else pressure_exp,
-                    0.0, 3.0, "-")
+                    0.0, 3.0, "")
     return p, eps, tr, pr, mnr, eps_r, k, n, b, a
 
 
@@ -146,7 +146,7 @@ def t_limit(p_boost_bar, compression_ratio, methane_number, t_ref, p_ref_bar, mn
     p, eps, tr, pr, mnr, eps_r, k, n, b, a = _checked(
         p_boost_bar, compression_ratio, t_ref, p_ref_bar, mn_ref, compression_ratio_ref,
         k_per_mn, n_poly, activation_k, pressure_exp)
-    mn = check_range("methane_number", methane_number, 0.0, 150.0, "-")
+    mn = check_range("methane_number", methane_number, 0.0, 150.0, "")
     return _t_allow_ref_mn(p, eps, tr, pr, eps_r, n, b, a) + k * (mn - mnr)
 
 
