@@ -206,6 +206,9 @@ def test_argon_and_helium_count_as_nitrogen():
     ({"CH4": 36, "N2": 64, "He": 0}, None),
 ])
 def test_en16726_limits(gas, pattern):
+    """Method limits C5 <= 3, C6+ <= 3, together <= 5 vol-% (ASTM D8221 scope text on EN 16726
+    Annex A, data file lumping notes); inert diagram domain combustibles >= 35 vol-% (data file);
+    NH3 not covered and Ar + He <= 1 vol-% counted as N2 (our documented treatment)."""
     if pattern is None:
         assert math.isfinite(methane_number(gas))
         return

@@ -208,6 +208,8 @@ def _plan_hydrogen(c: dict):
     return m, out
 
 
+_SHOW = {"C4H10_eq": "butane equivalent"}
+
 #: single diagrams tried, in this order, when no split plan applies (D06 last)
 SINGLE_ORDER = ("D04", "D01", "D02", "D14", "D08", "D07", "D05", "D03",
                 "D11", "D10", "D09", "D12", "D13", "D15", "D16", "D06")
@@ -304,7 +306,7 @@ def split_combustibles(groups: tuple) -> tuple:
     m, raw, why = _plan_single(c)
     if m is not None:
         return m, "single diagram", tuple(Partial(code, am, m) for code, am in raw)
-    listed = ", ".join(f"{g} {v:.3g} %" for g, v in c.items())
+    listed = ", ".join(f"{_SHOW.get(g, g)} {v:.3g} %" for g, v in c.items())
     tail = f"; single diagrams: {why}" if why else ""
     raise CellInputError(
         f"components: EN16726: no split of the combustibles ({listed}) into partial mixtures "
