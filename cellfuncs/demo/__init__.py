@@ -15,7 +15,7 @@ import tempfile
 __all__ = ["WORKBOOKS", "build_all", "build_one"]
 
 #: demo modules, in the order they are built
-WORKBOOKS = ("gas_quality", "hx_sizing")
+WORKBOOKS = ("tender_chp", "gas_quality", "knock_whatif", "hx_sizing")
 
 
 def build_one(module_name: str, out_dir: str):
