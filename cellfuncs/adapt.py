@@ -18,6 +18,7 @@ Errors are :class:`~cellfuncs.errors.CellInputError`; the adapters render them.
 
 from __future__ import annotations
 
+import itertools
 import math
 
 from cellfuncs.catalogue.spec import CellFunction
@@ -104,7 +105,24 @@ def _cell(v):
         return str(v)
 
 
+_PLAIN_CELL_TYPES = frozenset((float, type(None)))
+_chain = itertools.chain.from_iterable
+
+
 def _range(arg, v):
+    # fast path: a list of rows of floats, names and blanks (what xlwings hands over)
+    if type(v) is list and v and type(v[0]) is list:
+        try:
+            rows = tuple(map(tuple, v))
+        except TypeError:
+            rows = None
+        if rows is not None and len(set(map(len, rows))) == 1:
+            types = set(map(type, _chain(rows)))
+            if types <= _PLAIN_CELL_TYPES:
+                return rows
+            if types <= _PLAIN_CELL_TYPES | {str}:
+                if all(c.strip() for c in _chain(rows) if type(c) is str):
+                    return rows
     if isinstance(v, (list, tuple)):
         if not v:
             return ()
