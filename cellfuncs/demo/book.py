@@ -43,7 +43,7 @@ class _Sheet:
         ws["A1"] = title
         ws["A1"].font = _TITLE
         self.row = 3
-        for col, width in zip("ABCDEFGHIJ", (46, 18, 12, 60, 14, 14, 14, 14, 14, 14)):
+        for col, width in zip("ABCDEFGHIJ", (52, 22, 22, 22, 22, 22, 22, 16, 16, 16)):
             ws.column_dimensions[col].width = width
 
     def heading(self, text):
