@@ -90,7 +90,8 @@ def _shells_from_r(r, cr, n):
     y = n * big_l
     if y > 700.0:  # X^N > e^700: ε = 1 to double precision
         return 1.0
-    h = n * r * _log1prel(w) * _exprel(y)
+    rel = big_l / w if w != 0.0 else 1.0  # L(w)
+    h = n * r * rel * (_expm1(y) / y if y != 0.0 else 1.0)
     return h / (1.0 + h)
 
 
@@ -399,9 +400,11 @@ def _ntu_one_shell(e1, cr):
 def _ntu_shells(e, cr, n):
     if n == 1:
         return _ntu_one_shell(e, cr)
-    u = e * (1.0 - cr) / (1.0 - e)
-    big_m = _log1p(u) / n
-    k = e / (1.0 - e) * _log1prel(u) * _exprel(big_m) / n
+    q = e / (1.0 - e)
+    u = q * (1.0 - cr)
+    lu = _log1p(u)
+    big_m = lu / n
+    k = q * (lu / u if u != 0.0 else 1.0) * (_expm1(big_m) / big_m if big_m != 0.0 else 1.0) / n
     e1 = k / (1.0 + k)
     return n * _ntu_one_shell(e1, cr)
 
