@@ -1,5 +1,7 @@
 """Catalogue entries of the hx family (heat-exchanger sizing and rating)."""
 
+from dataclasses import replace
+
 from cellfuncs.catalogue.spec import Arg, CellFunction
 from cellfuncs.heat_transfer.arrangements import ALIASES, ARRANGEMENTS, FLOWS, RATE_OUTPUTS
 
@@ -141,3 +143,5 @@ EXAMPLES = {
     "HX_NTU": (0.7, 0.5, "1-2"),
     "HX_RATE": (90.0, 60.0, 25.0, 20.0, 40.0, "counter", "all"),
 }
+
+ENTRIES = [replace(e, example=EXAMPLES[e.name]) for e in ENTRIES]
