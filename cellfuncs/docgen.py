@@ -31,6 +31,31 @@ def _md_escape(s: str) -> str:
     return s.replace("|", "\\|")
 
 
+def _fmt_value(v):
+    if isinstance(v, str):
+        return f'"{v}"'
+    if isinstance(v, float):
+        return f"{v:.6g}"
+    return str(v)
+
+
+def _example_line(e):
+    """``Example: `=HX_LMTD(100, 60, 30, 40.2, "counter")` → 43.2004`` (scalar arguments only)."""
+    if not e.example or any(isinstance(v, (list, tuple)) for v in e.example):
+        return ""
+    from cellfuncs import excel
+
+    res = getattr(excel, e.name)(*e.example)
+    if isinstance(res, list):
+        res_text = "{" + "; ".join(", ".join(_fmt_value(c) for c in row) for row in res) + "}"
+    else:
+        res_text = _fmt_value(res)
+    if e.name == "CELLFUNCS_VERSION":
+        res_text = "the installed version"
+    call = ", ".join(_fmt_value(v) for v in e.example)
+    return f"Example: `={e.name}({call})` → {res_text}"
+
+
 def functions_markdown() -> str:
     from cellfuncs import __version__  # noqa: F401 - the docs do not carry it (stable output)
 
@@ -62,4 +87,7 @@ def functions_markdown() -> str:
                 out.append(f"| `{name}` | {_md_escape(a.unit or '')} | {_md_escape(help_)} |")
             out.append("")
         out += [f"Returns: {e.returns}.".replace("..", "."), ""]
+        ex = _example_line(e)
+        if ex:
+            out += [ex, ""]
     return "\n".join(out)
