@@ -1,5 +1,150 @@
-"""Catalogue entries of the recovery family."""
+"""Catalogue entries of the recovery family: hot-water circuits, exhaust heat,
+genset and engine basics, plant balance.
 
-from cellfuncs.catalogue.spec import Arg, CellFunction  # noqa: F401
+All results are estimates for tendering; engine data come from the engine's
+declared datasheet; final design follows local codes and licensed engineers.
+"""
 
-ENTRIES: list = []
+from cellfuncs.catalogue.spec import REQUIRED, Arg, CellFunction
+
+CAT_HR = "cellfuncs · heat recovery"
+CAT_ENG = "cellfuncs · engine"
+CAT_PLANT = "cellfuncs · plant balance"
+
+_REC = "cellfuncs.recovery."
+_ENG = "cellfuncs.engine."
+
+GLYCOL_WORDS = ("ethylene", "propylene")
+GLYCOL_ALIASES = {"eg": "ethylene", "meg": "ethylene", "ethyleneglycol": "ethylene",
+                  "pg": "propylene", "mpg": "propylene", "propyleneglycol": "propylene"}
+ARRANGEMENT_WORDS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
+                     "cross-cmin-mixed", "cross-cmax-mixed")
+ARRANGEMENT_ALIASES = {"counterflow": "counter", "parallelflow": "parallel"}
+
+_PROPS = ("Water: IAPWS-95 at 3 bar(a) (liquid 0 to 133.52 °C); water-glycol: CoolProp "
+          "INCOMP::MEG/MPG (Melinder 2010), mass fraction 0-0.6, freezing point to 100 °C")
+
+
+def _glycol_fraction():
+    return Arg("glycol_fraction", "Glycol mass fraction of the circuit fluid, 0 for water, "
+               "at most 0.6", "-", default=0.0)
+
+
+def _glycol():
+    return Arg("glycol", "Glycol in the circuit fluid (ignored when glycol_fraction is 0)",
+               kind="option", default="ethylene", options=GLYCOL_WORDS, aliases=GLYCOL_ALIASES)
+
+
+def _t(name, what):
+    return Arg(name, what, "°C")
+
+
+def _flow(name="flow_m3h", what="Hot-water volume flow, measured at the water's inlet temperature"):
+    return Arg(name, what, "m³/h")
+
+
+_CHAIN_FLOW = ("Circuit volume flow, measured at the water's inlet temperature, for a chain "
+               "the return temperature t_return")
+
+HOT_WATER = [
+    CellFunction(
+        name="HW_CP",
+        target=_REC + "water:hw_cp",
+        category=CAT_HR,
+        description="Specific heat capacity of hot water or water-glycol at 3 bar(a). " + _PROPS + ".",
+        args=(_t("t", "Fluid temperature"), _glycol_fraction(), _glycol()),
+        returns="specific heat capacity cp [kJ/(kg·K)]",
+    ),
+    CellFunction(
+        name="HW_DENSITY",
+        target=_REC + "water:hw_density",
+        category=CAT_HR,
+        description="Density of hot water or water-glycol at 3 bar(a). " + _PROPS + ".",
+        args=(_t("t", "Fluid temperature"), _glycol_fraction(), _glycol()),
+        returns="density [kg/m³]",
+    ),
+    CellFunction(
+        name="HW_FLOW",
+        target=_REC + "water:hw_flow",
+        category=CAT_HR,
+        description="Hot-water volume flow (measured at t_in) that carries duty_kw between t_in "
+                    "and t_out, from the enthalpy rise at 3 bar(a). An estimate for tendering.",
+        args=(Arg("duty_kw", "Heat added to the water (negative if it is cooled)", "kW"),
+              _t("t_in", "Water inlet temperature; the flow is measured here"),
+              _t("t_out", "Water outlet temperature"),
+              _glycol_fraction(), _glycol()),
+        returns="volume flow at t_in [m³/h]",
+    ),
+    CellFunction(
+        name="HW_DUTY",
+        target=_REC + "water:hw_duty",
+        category=CAT_HR,
+        description="Duty of a hot-water flow (volume measured at t_in) heated from t_in to t_out, "
+                    "from the enthalpy rise at 3 bar(a). An estimate for tendering.",
+        args=(_flow(), _t("t_in", "Water inlet temperature; the flow is measured here"),
+              _t("t_out", "Water outlet temperature"), _glycol_fraction(), _glycol()),
+        returns="duty [kW], negative when the water is cooled",
+    ),
+    CellFunction(
+        name="HW_CHAIN",
+        target=_REC + "chain:cell_chain",
+        category=CAT_HR,
+        description="Water temperature after each heat exchanger of a hot-water chain when the "
+                    "listed duties are added in the listed order (array formula), or after stage "
+                    "k. Boiling at 3 bar(a) (133.52 °C) is an error naming the stage.",
+        args=(_t("t_return", "Return temperature entering the first exchanger"),
+              _flow(what=_CHAIN_FLOW),
+              Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
+                  "[kW]; a blank cell is a stage with no duty", kind="range"),
+              _glycol_fraction(), _glycol(),
+              Arg("stage", "Return only the temperature after this stage (1 = first); blank "
+                  "returns every stage", kind="integer", default=None)),
+        returns="water temperature after each stage, laid out like duties_kw [°C]",
+        shape="array",
+    ),
+    CellFunction(
+        name="HW_CHAIN_RATE",
+        target=_REC + "chain:cell_chain_rate",
+        category=CAT_HR,
+        description="Rates a hot-water chain of given exchangers (hot-side inlet temperature, "
+                    "capacity rate and UA per stage, in water-flow order) by epsilon-NTU; a stage "
+                    "colder than the water reaching it gives a negative duty. Array formula.",
+        args=(_t("t_return", "Return temperature entering the first exchanger"),
+              _flow(what=_CHAIN_FLOW),
+              Arg("hot_t_in", "Hot-side inlet temperature of each stage, one row or column [°C]",
+                  kind="range"),
+              Arg("hot_c_kw_k", "Hot-side capacity rate (mass flow times cp) of each stage, one "
+                  "row or column [kW/K]", kind="range"),
+              Arg("ua_kw_k", "UA of each stage, one row or column [kW/K]; blank or 0 = no exchange",
+                  kind="range"),
+              Arg("arrangement", "Flow arrangement of every stage", kind="option",
+                  default="counter", options=ARRANGEMENT_WORDS, aliases=ARRANGEMENT_ALIASES),
+              Arg("output", "Result per stage: water outlet, duty or hot-side outlet", kind="option",
+                  default="t_out", options=("t_out", "duty", "t_hot_out"),
+                  aliases={"tout": "t_out", "thotout": "t_hot_out", "q": "duty"}),
+              _glycol_fraction(), _glycol()),
+        returns="per stage: water outlet temperature [°C], duty [kW] or hot-side outlet "
+                "temperature [°C], laid out like hot_t_in",
+        shape="array",
+    ),
+    CellFunction(
+        name="HW_CHAIN_CHECK",
+        target=_REC + "chain:cell_chain_check",
+        category=CAT_HR,
+        description='"OK", or one line naming the first stage of a hot-water chain where the water '
+                    "would leave hotter than its source minus the minimum approach, or would boil; "
+                    "fix by reordering, splitting or bypassing.",
+        args=(_t("t_return", "Return temperature entering the first exchanger"),
+              _flow(what=_CHAIN_FLOW),
+              Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
+                  "[kW]; a blank cell is a stage with no duty", kind="range"),
+              Arg("hot_t_max", "Hottest hot-side temperature of each stage's source, one cell per "
+                  "stage or one for all [°C]", kind="range"),
+              Arg("min_approach", "Smallest allowed difference between the source temperature "
+                  "and the water leaving the stage", "K", default=5.0),
+              _glycol_fraction(), _glycol()),
+        returns='"OK" or a one-line finding (text)',
+    ),
+]
+
+ENTRIES: list = HOT_WATER
