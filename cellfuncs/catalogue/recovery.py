@@ -147,4 +147,100 @@ HOT_WATER = [
     ),
 ]
 
-ENTRIES: list = HOT_WATER
+_DATASHEET = "from the engine's declared datasheet"
+
+ENGINE = [
+    CellFunction(
+        name="GEN_SPEED",
+        target=_ENG + "genset:gen_speed",
+        category=CAT_ENG,
+        description="Synchronous speed of a generator: 60 times the grid frequency divided by the "
+                    "number of pole pairs (2 pole pairs: 1,500 rpm at 50 Hz, 1,800 rpm at 60 Hz).",
+        args=(Arg("frequency_hz", "Grid frequency", "Hz"),
+              Arg("pole_pairs", "Number of pole pairs of the generator, a whole number", "-",
+                  kind="integer")),
+        returns="synchronous speed [rpm]",
+    ),
+    CellFunction(
+        name="GEN_POLE_PAIRS",
+        target=_ENG + "genset:gen_pole_pairs",
+        category=CAT_ENG,
+        description="Pole pairs of a synchronous generator from grid frequency and speed; an error "
+                    "when the speed is more than 0.5 % away from a synchronous speed.",
+        args=(Arg("frequency_hz", "Grid frequency", "Hz"),
+              Arg("speed_rpm", "Generator shaft speed " + _DATASHEET, "rpm")),
+        returns="pole pairs [-]",
+    ),
+    CellFunction(
+        name="ENGINE_BMEP",
+        target=_ENG + "bmep:engine_bmep",
+        category=CAT_ENG,
+        description="Brake mean effective pressure of a reciprocating engine from shaft power, total "
+                    "displacement and speed; a four-stroke engine fires each cylinder once per two "
+                    "crankshaft turns (BMEP = 1200·P/(V·n)).",
+        args=(Arg("shaft_power_kw", "Shaft (brake) power " + _DATASHEET, "kW"),
+              Arg("displacement_l", "Total swept volume of all cylinders", "l"),
+              Arg("speed_rpm", "Crankshaft speed", "rpm"),
+              Arg("strokes", "Strokes per working cycle, 4 or 2", "-", kind="integer", default=4)),
+        returns="brake mean effective pressure [bar]",
+    ),
+    CellFunction(
+        name="ENGINE_POWER",
+        target=_ENG + "bmep:engine_power",
+        category=CAT_ENG,
+        description="Shaft power of a reciprocating engine from brake mean effective pressure, total "
+                    "displacement and speed (inverse of ENGINE_BMEP).",
+        args=(Arg("bmep_bar", "Brake mean effective pressure", "bar"),
+              Arg("displacement_l", "Total swept volume of all cylinders", "l"),
+              Arg("speed_rpm", "Crankshaft speed", "rpm"),
+              Arg("strokes", "Strokes per working cycle, 4 or 2", "-", kind="integer", default=4)),
+        returns="shaft power [kW]",
+    ),
+]
+
+PLANT = [
+    CellFunction(
+        name="CHP_HEAT_RATE",
+        target=_REC + "plant:chp_heat_rate",
+        category=CAT_PLANT,
+        description="Heat rate of a generating set: fuel energy per kWh of electricity, 3600 divided "
+                    "by the electrical efficiency, on that efficiency's calorific-value basis.",
+        args=(Arg("electrical_efficiency", "Electrical efficiency, a fraction " + _DATASHEET, "-"),),
+        returns="heat rate [kJ/kWh]",
+    ),
+    CellFunction(
+        name="CHP_PES",
+        target=_REC + "plant:chp_pes",
+        category=CAT_PLANT,
+        description="Primary energy savings of cogeneration, 1 - 1/(η_th/ref_th + η_el/ref_el), per "
+                    "Directive 2012/27/EU Annex II. Reference efficiencies depend on fuel, year and "
+                    "country: take them from the applicable regulation.",
+        args=(Arg("electrical_efficiency", "CHP electrical efficiency, electricity over fuel input "
+                  "on net calorific value", "-"),
+              Arg("thermal_efficiency", "CHP heat efficiency, useful heat over fuel input on net "
+                  "calorific value", "-"),
+              Arg("ref_electrical_efficiency", "Harmonised reference efficiency for separate "
+                  "electricity production; depends on fuel, year and country (no default)", "-"),
+              Arg("ref_thermal_efficiency", "Harmonised reference efficiency for separate heat "
+                  "production; depends on fuel, year and country (no default)", "-")),
+        returns="primary energy savings [-] (high-efficiency cogeneration: >= 0.10)",
+    ),
+    CellFunction(
+        name="CHP_BALANCE",
+        target=_REC + "plant:chp_balance",
+        category=CAT_PLANT,
+        description="Energy balance of a CHP plant as fractions of the fuel power: total, electrical, "
+                    "thermal (the heat range summed, blanks skipped) or unaccounted losses. An "
+                    "estimate for tendering.",
+        args=(Arg("fuel_power_kw", "Fuel power input (state its calorific-value basis)", "kW"),
+              Arg("electrical_kw", "Electrical output", "kW"),
+              Arg("heat_kw", "Useful heat outputs, any range, summed; blank cells are skipped [kW]",
+                  kind="range"),
+              Arg("output", "Which fraction", kind="option", default="total",
+                  options=("total", "electrical", "thermal", "unaccounted"),
+                  aliases={"losses": "unaccounted", "heat": "thermal", "power": "electrical"})),
+        returns="fraction of the fuel power [-]",
+    ),
+]
+
+ENTRIES: list = HOT_WATER + ENGINE + PLANT
