@@ -341,3 +341,69 @@ def test_props_positive_and_inverse(t, x, g):
     assert 3.0 < cp < 4.4 and 900.0 < rho < 1100.0
     h = water.enthalpy(t, x, g)
     assert water.temperature_from_enthalpy(h, 50.0, x, g) == pytest.approx(t, abs=1e-8)
+
+
+# ---- catalogue entries of the family ------------------------------------------------
+
+FAMILY_CATEGORIES = {"cellfuncs · heat recovery", "cellfuncs · engine", "cellfuncs · plant balance"}
+
+
+def _family():
+    from cellfuncs.catalogue import recovery
+
+    return recovery.ENTRIES
+
+
+def test_catalogue_entries_are_well_formed():
+    import inspect
+
+    names = {e.name for e in _family()}
+    assert names == {"HW_CP", "HW_DENSITY", "HW_FLOW", "HW_DUTY", "HW_CHAIN", "HW_CHAIN_RATE",
+                     "HW_CHAIN_CHECK", "EXH_FLOW", "EXH_COMPOSITION", "EXH_HEAT", "EXH_DEWPOINT",
+                     "EXH_O2_CORRECT", "GEN_SPEED", "GEN_POLE_PAIRS", "ENGINE_BMEP", "ENGINE_POWER",
+                     "CHP_HEAT_RATE", "CHP_PES", "CHP_BALANCE"}
+    for e in _family():
+        assert e.category in FAMILY_CATEGORIES
+        assert e.category == ("cellfuncs · heat recovery" if e.name[:3] in ("HW_", "EXH")
+                              else "cellfuncs · engine" if e.name[:3] in ("GEN", "ENG")
+                              else "cellfuncs · plant balance")
+        assert len(e.description) <= 255
+        assert "[" in e.returns
+        params_ = list(inspect.signature(e.resolve()).parameters.values())
+        assert len(params_) >= len(e.args)
+        for a in e.args:
+            if a.kind == "option":
+                assert all(o == o.lower() for o in a.options)
+                assert a.default is None or a.default in a.options or not a.optional
+            if a.kind in ("range", "option", "text"):
+                assert a.unit == ""
+
+
+def test_catalogue_calls_like_the_adapters():
+    """Call the targets positionally with adapter-coerced values (ranges as tuples of rows)."""
+    from cellfuncs.catalogue import by_name
+
+    def call(name, *args):
+        e = by_name(name)
+        full = list(args) + [a.default for a in e.args[len(args):]]
+        return e.resolve()(*full)
+
+    assert call("HW_CP", 70.0) == pytest.approx(hw_cp(70.0))
+    t = call("HW_CHAIN", 60.0, 50.0, ((200.0, 300.0),))
+    assert len(t[0]) == 2
+    assert call("HW_CHAIN", 60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 1) == [[t[0][0]]]
+    r = call("HW_CHAIN_RATE", 70.0, 40.0, ((92.0, 450.0),), ((20.95, 3.351),), ((60.0, 8.0),))
+    assert 70 < r[0][0] < r[0][1]
+    assert call("HW_CHAIN_CHECK", 60.0, 50.0, ((200.0,),), ((95.0,),)) == "OK"
+    comps, fr = (("methane",),), ((100.0,),)
+    assert call("EXH_FLOW", 1000.0, 1.8, comps, fr) > 2000
+    from cellfuncs.recovery.exhaust import exhaust_composition
+    assert call("EXH_COMPOSITION", 1.8, comps, fr, "co2") == exhaust_composition(
+        1.8, {"CH4": 100.0}, "co2", "wet", 25.0, 0.3, 1.0)
+    from cellfuncs.recovery.exhaust import exhaust_heat
+    assert call("EXH_HEAT", 3600.0, 450.0, 120.0, 1.8, comps, fr) == exhaust_heat(
+        3600.0, 450.0, 120.0, 1.8, {"CH4": 100.0}, 25.0, 0.3, 1.0)
+    assert call("EXH_DEWPOINT", 1.8, comps, fr) > 47.9  # humid air adds water
+    assert call("GEN_SPEED", 50.0, 2) == 1500.0
+    assert call("ENGINE_BMEP", 1000.0, 50.0, 1500.0) == pytest.approx(16.0, rel=1e-12)
+    assert call("CHP_BALANCE", 2000.0, 800.0, ((500.0,), (None,), (400.0,))) == pytest.approx(0.85)

@@ -143,7 +143,7 @@ HOT_WATER = [
               Arg("min_approach", "Smallest allowed difference between the source temperature "
                   "and the water leaving the stage", "K", default=5.0),
               _glycol_fraction(), _glycol()),
-        returns='"OK" or a one-line finding (text)',
+        returns="\"OK\" or a one-line finding [text]",
     ),
 ]
 
@@ -243,4 +243,105 @@ PLANT = [
     ),
 ]
 
-ENTRIES: list = HOT_WATER + ENGINE + PLANT
+_COMPONENTS = Arg(
+    "components",
+    "Range of fuel-gas component names (formula or common name, as in the GAS_ functions), or a "
+    "two-column range of names and amounts when fractions is omitted", kind="range")
+_FRACTIONS = Arg(
+    "fractions",
+    "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near "
+    "1); omit for a two-column components range", kind="range", default=None)
+_FRACTIONS_REQ = Arg(
+    "fractions",
+    "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near 1)",
+    kind="range")
+_LAMBDA = Arg("lambda", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, from the "
+              "engine's declared datasheet", "-")
+
+
+def _ambient():
+    return (Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the exhaust)",
+                "°C", default=25.0),
+            Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1", "-", default=0.3),
+            Arg("p_ambient_bar", "Ambient pressure", "bar(a)", default=1.0))
+
+
+_EXH_NOTE = " An estimate for tendering."
+
+EXHAUST = [
+    CellFunction(
+        name="EXH_FLOW",
+        target=_REC + "exhaust:cell_exh_flow",
+        category=CAT_HR,
+        description="Wet exhaust mass flow of a gas engine: fuel + lambda times the stoichiometric "
+                    "dry air + the air's water vapour, complete combustion." + _EXH_NOTE,
+        args=(Arg("fuel_power_kw", "Fuel power input " + _DATASHEET + ", on the kind of calorific "
+                  "value given (at 25 °C combustion reference)", "kW"),
+              _LAMBDA, _COMPONENTS, _FRACTIONS,
+              Arg("kind", "Calorific value the fuel power refers to, net (LHV) or gross (HHV)",
+                  kind="option", default="net", options=("gross", "net"),
+                  aliases={"lhv": "net", "hhv": "gross", "inferior": "net", "superior": "gross"}),
+              *_ambient()),
+        returns="wet exhaust mass flow [kg/h]",
+    ),
+    CellFunction(
+        name="EXH_COMPOSITION",
+        target=_REC + "exhaust:cell_exh_composition",
+        category=CAT_HR,
+        description="Mole fraction of CO2, H2O, O2, N2, Ar or SO2 in a gas engine's exhaust (complete "
+                    "combustion, H2S to SO2, excess O2, the humid air's water and argon), wet or dry "
+                    "basis.",
+        args=(_LAMBDA, _COMPONENTS, _FRACTIONS_REQ,
+              Arg("species", "Exhaust species", kind="option", default=REQUIRED,
+                  options=("co2", "h2o", "o2", "n2", "ar", "so2"),
+                  aliases={"carbondioxide": "co2", "water": "h2o", "oxygen": "o2",
+                           "nitrogen": "n2", "argon": "ar", "sulfurdioxide": "so2"}),
+              Arg("basis", "Wet exhaust, or dry (water removed; h2o is then 0)", kind="option",
+                  default="wet", options=("wet", "dry")),
+              *_ambient()),
+        returns="mole (volume) fraction [-]",
+    ),
+    CellFunction(
+        name="EXH_HEAT",
+        target=_REC + "exhaust:cell_exh_heat",
+        category=CAT_HR,
+        description="Sensible heat a gas engine's exhaust gives up between t_in and t_out (ideal-gas "
+                    "mixture, GRI-Mech 3.0 NASA-7 data); t_out below the water dew point is an error. "
+                    "About 120 °C is the usual stack limit.",
+        args=(Arg("exhaust_flow_kg_h", "Wet exhaust mass flow " + _DATASHEET + " or from EXH_FLOW",
+                  "kg/h"),
+              _t("t_in", "Exhaust temperature entering the exchanger"),
+              _t("t_out", "Exhaust (stack) temperature leaving the exchanger; about 120 °C is the "
+                 "usual design limit for natural gas to stay clear of water and acid condensation "
+                 "(common practice), and below the water dew point (at 1.01325 bar(a)) is an error"),
+              _LAMBDA, _COMPONENTS, _FRACTIONS, *_ambient()),
+        returns="heat given up by the exhaust [kW], sensible only",
+    ),
+    CellFunction(
+        name="EXH_DEWPOINT",
+        target=_REC + "exhaust:cell_exh_dewpoint",
+        category=CAT_HR,
+        description="Water dew point of a gas engine's exhaust at a pressure: saturation temperature "
+                    "of water (IAPWS-IF97) at its partial pressure. The acid dew point of sulfur-"
+                    "bearing gas is higher and not computed.",
+        args=(_LAMBDA, _COMPONENTS, _FRACTIONS,
+              Arg("p_bar", "Exhaust pressure", "bar(a)", default=1.01325), *_ambient()),
+        returns="water dew point [°C]",
+    ),
+    CellFunction(
+        name="EXH_O2_CORRECT",
+        target=_REC + "exhaust:o2_correct",
+        category=CAT_HR,
+        description="An emission concentration referred to a reference O2 content: c·(20.9 − "
+                    "O2_ref)/(20.9 − O2_meas), O2 in vol-% dry (common practice in emission permits; "
+                    "some use 21: check the permit).",
+        args=(Arg("concentration", "Measured concentration on a dry basis, any unit (e.g. mg/m³)",
+                  "-"),
+              Arg("o2_measured", "O2 measured, vol-% dry, below 20.9", "vol-%"),
+              Arg("o2_reference", "Reference O2 of the limit value, vol-% dry (e.g. 5 or 15)",
+                  "vol-%")),
+        returns="concentration at the reference O2 [unit of concentration]",
+    ),
+]
+
+ENTRIES: list = HOT_WATER + EXHAUST + ENGINE + PLANT
