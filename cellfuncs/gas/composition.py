@@ -17,7 +17,8 @@ Rules
   by the sum; a sum more than 2 % away from 100 % is an error stating the sum.
   Within that tolerance the composition is normalised.
 * Blank rows are skipped; a name with a blank amount counts as absent (so a
-  template listing every component can be filled in partly).
+  template listing every component can be filled in partly).  A first row of
+  two texts that are neither a component nor a number is taken as a heading.
 * A negative amount, a duplicate component or an unknown name is an error
   naming the row, with the closest accepted name suggested.
 * ``"C6+"`` is taken as n-hexane (common practice for a lumped hexanes-plus
@@ -30,7 +31,7 @@ nC8H18, H2, CO, H2S, NH3, H2O, He, Ar, N2, O2, CO2``.
 
 from __future__ import annotations
 
-import difflib
+import functools
 import math
 from dataclasses import dataclass, field
 from functools import lru_cache
@@ -43,6 +44,7 @@ __all__ = [
     "parse_composition",
     "accepted_names",
     "cell_components",
+    "cell_cached",
     "component_id",
     "display_name",
     "paired_amounts",
@@ -141,6 +143,8 @@ def display_name(cid: str) -> str:
 
 
 def _suggest(name: str) -> str:
+    import difflib
+
     key = _key(name)
     for cutoff in (0.75, 0.5):
         hits = difflib.get_close_matches(key, list(_SPELLING), n=1, cutoff=cutoff)
@@ -194,6 +198,12 @@ class Composition:
     total: float = field(default=1.0, compare=False)
     unit: str = field(default="fraction", compare=False)
 
+    def __post_init__(self):
+        object.__setattr__(self, "_hash", hash((self.ids, self.x)))
+
+    def __hash__(self) -> int:  # computed once: compositions key many caches
+        return self._hash
+
     def get(self, cid: str, default: float = 0.0) -> float:
         """Mole fraction of a component id (``default`` if absent). [-]"""
         try:
@@ -214,6 +224,29 @@ class Composition:
 
     def __contains__(self, cid) -> bool:
         return cid in self.ids
+
+
+def cell_cached(fn):
+    """Cache a cell wrapper's results on its (hashable) arguments.
+
+    A sheet calls the same function on the same gas range many times; the
+    adapters hand over ranges as tuples, so the whole call is a cache key.
+    Errors are not cached.  Unhashable arguments (lists from Python callers)
+    bypass the cache.
+    """
+    cached = lru_cache(maxsize=4096)(fn)
+
+    @functools.wraps(fn)
+    def wrapper(*args, **kwargs):
+        try:
+            return cached(*args, **kwargs)
+        except TypeError as exc:
+            if "unhashable" not in str(exc):
+                raise
+            return fn(*args, **kwargs)
+
+    wrapper.cache_clear = cached.cache_clear
+    return wrapper
 
 
 # ---------------------------------------------------------------------------
@@ -250,13 +283,26 @@ def _name(cell, arg: str, where: str):
     if isinstance(cell, str):
         s = cell.strip()
         return s or None
-    raise CellTypeError(f"{arg}: {where} holds {fmt(cell) if isinstance(cell, float) else cell!r}"
-                        ", a component name is needed")
+    shown = fmt(float(cell)) if isinstance(cell, (int, float)) else repr(cell)
+    raise CellTypeError(f"{arg}: {where} holds {shown}, a component name is needed")
+
+
+def _is_header(ncell, acell) -> bool:
+    """First row with text in both cells, neither a component nor a number."""
+    if not (isinstance(ncell, str) and isinstance(acell, str)) or _key(ncell) in _LOOKUP:
+        return False
+    try:
+        float(acell.replace(",", ".").rstrip("%").strip())
+    except ValueError:
+        return True
+    return False
 
 
 def _finish(pairs: tuple, name_arg: str, amount_arg: str) -> Composition:
     """pairs: ((where, name_cell, amount_cell), ...) -> Composition."""
     seen: dict = {}
+    if pairs and _is_header(pairs[0][1], pairs[0][2]):
+        pairs = pairs[1:]  # a heading row selected with the data ("component", "mol%")
     for where, ncell, acell in pairs:
         name = _name(ncell, name_arg, where)
         amount = _amount(acell, amount_arg, where)
@@ -402,6 +448,8 @@ def parse_composition(components, fractions=None) -> Composition:
     if isinstance(components, dict):
         if fractions is not None:
             raise CellInputError("fractions: must be omitted when components is a dict")
+        if any(isinstance(v, bool) for v in components.values()):
+            raise CellTypeError("components: dict values must be numbers, not True/False")
         try:
             return _parse_pairs(tuple(components.items()))
         except TypeError:  # unhashable amounts
@@ -411,6 +459,12 @@ def parse_composition(components, fractions=None) -> Composition:
     if isinstance(fractions, (int, float)) and not isinstance(fractions, bool):
         fractions = ((float(fractions),),)
     if _is_range(components) and (fractions is None or _is_range(fractions)):
+        # True == 1.0 for the cache key: reject booleans before the cache is asked
+        for rng, arg in ((components, "components"), (fractions or (), "fractions")):
+            for row in rng:
+                for cell in row:
+                    if isinstance(cell, bool):
+                        raise CellTypeError(f"{arg}: {cell!r} is not a name or a number")
         try:
             return _parse_ranges(components, fractions)
         except TypeError as exc:  # unhashable cells

@@ -26,7 +26,7 @@ from functools import lru_cache
 from pathlib import Path
 
 from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
-from cellfuncs.gas.composition import COMPONENT_IDS, Composition, parse_composition
+from cellfuncs.gas.composition import cell_cached, COMPONENT_IDS, Composition, parse_composition
 
 __all__ = [
     "R", "P0_BAR", "M_AIR", "Z_AIR", "T_COMBUSTION", "T_METERING",
@@ -420,32 +420,38 @@ def wobbe_index(comp, kind: str = "gross", ref="15/15", p_metering_bar: float = 
 # cell wrappers (components/fractions arrive as ranges)
 
 
+@cell_cached
 def cell_molar_mass(components, fractions=None) -> float:
     """GAS_MOLAR_MASS: molar mass [kg/kmol]."""
     return molar_mass(parse_composition(components, fractions))
 
 
+@cell_cached
 def cell_z(components, fractions=None, t_metering=15, p_metering_bar=P0_BAR) -> float:
     """GAS_Z: compression factor [-]."""
     return compression_factor(parse_composition(components, fractions), t_metering, p_metering_bar)
 
 
+@cell_cached
 def cell_cv(components, fractions=None, kind="gross", basis="volume", ref="15/15",
             p_metering_bar=P0_BAR) -> float:
     """GAS_CV: calorific value [MJ/m³, MJ/kg or kJ/mol]."""
     return calorific_value(parse_composition(components, fractions), kind, basis, ref, p_metering_bar)
 
 
+@cell_cached
 def cell_wobbe(components, fractions=None, kind="gross", ref="15/15", p_metering_bar=P0_BAR) -> float:
     """GAS_WOBBE: Wobbe index [MJ/m³]."""
     return wobbe_index(parse_composition(components, fractions), kind, ref, p_metering_bar)
 
 
+@cell_cached
 def cell_density(components, fractions=None, t_metering=15, p_metering_bar=P0_BAR) -> float:
     """GAS_DENSITY: real-gas density [kg/m³]."""
     return density(parse_composition(components, fractions), t_metering, p_metering_bar)
 
 
+@cell_cached
 def cell_rel_density(components, fractions=None, t_metering=15, p_metering_bar=P0_BAR) -> float:
     """GAS_REL_DENSITY: relative density to dry air [-]."""
     return relative_density(parse_composition(components, fractions), t_metering, p_metering_bar)

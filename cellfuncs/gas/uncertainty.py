@@ -28,7 +28,7 @@ import math
 
 from cellfuncs.errors import CellInputError, check_range
 from cellfuncs.gas import iso6976
-from cellfuncs.gas.composition import Composition, paired_amounts, parse_composition
+from cellfuncs.gas.composition import cell_cached, Composition, paired_amounts, parse_composition
 
 __all__ = ["ATOMIC_WEIGHTS", "cv_standard_uncertainty", "cv_uncertainty", "cell_cv_uncertainty"]
 
@@ -149,6 +149,7 @@ def cv_uncertainty(comp, u_x: dict, kind: str = "gross", basis: str = "volume", 
     return k * cv_standard_uncertainty(comp, u_x, kind, basis, ref, p_metering_bar)
 
 
+@cell_cached
 def cell_cv_uncertainty(components, fractions, u_fractions, kind="gross", basis="volume",
                         ref="15/15", coverage=2.0) -> float:
     """GAS_CV_UNCERTAINTY: expanded uncertainty of GAS_CV [MJ/m³, MJ/kg or kJ/mol].
