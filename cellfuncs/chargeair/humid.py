@@ -60,7 +60,7 @@ __all__ = [
     "latent_heat_K",
 ]
 
-#: molar masses [g/mol] as ISO 6976:2016 (water; dry air of the gas family)
+#: molar masses [g/mol]: water as ISO 6976:2016, dry air the M_air of ISO 6976:2016
 M_WATER = 18.01528
 M_DRY_AIR = 28.96546
 #: ratio of the molar masses of water and dry air [-]
@@ -178,7 +178,7 @@ def dew_point_c(y_water: float, p_bar: float) -> float:
 def vapour_pressure(t_c: float, rh: float, name_t: str = "t_ambient",
                     name_rh: str = "rh_ambient") -> float:
     """Partial pressure of water [Pa] in air at t_c [°C] and relative humidity rh [-] (0-1)."""
-    check_range(name_rh, rh, 0.0, 1.0, "-")
+    check_range(name_rh, rh, 0.0, 1.0, "")
     check_range(name_t, t_c, T_LOW - 273.15, 100.0, "°C")
     return rh * p_sat_c(t_c)
 

@@ -77,6 +77,8 @@ T_MIN = 200.0
 T_MAX = 3000.0
 #: the break temperature of every polynomial in the table [K]
 T_MID = 1000.0
+# bracket of the temperature solvers [K]
+_SOLVE_LO, _SOLVE_HI = 150.0, 3500.0
 
 _DATA = Path(__file__).resolve().parents[1] / "data" / "nasa7_gri30.csv"
 
@@ -127,26 +129,39 @@ class Nasa7:
         return c[0] * math.log(T) + c[5] + T * (c[1] + T * (c[2] + T * (c[3] + T * c[4])))
 
     def t_from_h(self, h: float, guess: float = 400.0, tol: float = 1e-9) -> float:
-        """Temperature [K] at which ``self.h(T) == h`` (Newton; cp > 0 makes it unique)."""
-        T = guess
-        for _ in range(30):
-            dT = (self.h(T) - h) / self.cp(T)
-            T -= dT
-            if abs(dT) < tol:
-                return T
-        return self._at_break(self.h, self._hl, h, "h", "enthalpy", "J/mol")
+        """Temperature [K] at which ``self.h(T) == h`` (safeguarded Newton, 150-3500 K)."""
+        return self._solve(self.h, lambda T: self.cp(T), h, guess, tol, "h", "enthalpy",
+                           "J/mol")
 
     def t_from_s0(self, s0: float, guess: float = 400.0, tol: float = 1e-9) -> float:
-        """Temperature [K] at which ``self.s0(T) == s0`` (Newton on ds0/dT = cp/T)."""
-        T = guess
-        for _ in range(30):
-            dT = (self.s0(T) - s0) * T / self.cp(T)
-            T -= dT
-            if abs(dT) < tol:
-                return T
-        return self._at_break(self.s0, self._sl, s0, "s0", "entropy", "J/(mol·K)")
+        """Temperature [K] at which ``self.s0(T) == s0`` (safeguarded Newton, 150-3500 K)."""
+        return self._solve(self.s0, lambda T: self.cp(T) / T, s0, guess, tol, "s0", "entropy",
+                           "J/(mol·K)")
 
-    def _at_break(self, fn, low_coeffs, target, name, what, unit) -> float:
+    def _solve(self, fn, dfn, target, guess, tol, name, what, unit) -> float:
+        # Newton inside a bracket on which fn rises (cp > 0); a step that leaves the
+        # bracket is replaced by bisection, so the polynomials are never used far
+        # outside their range (where a spurious root may lie)
+        lo, hi = _SOLVE_LO, _SOLVE_HI
+        if not fn(lo) <= target <= fn(hi):
+            raise CellInputError(f"{name}: {what} {target:.6g} {unit} is outside "
+                                 f"{lo:g}-{hi:g} K")
+        T = min(max(guess, lo), hi)
+        for _ in range(100):
+            f = fn(T) - target
+            if f > 0:
+                hi = T
+            else:
+                lo = T
+            T_new = T - f / dfn(T)
+            if not lo < T_new < hi:
+                T_new = 0.5 * (lo + hi)
+            if abs(T_new - T) < tol or hi - lo < tol:
+                return T_new
+            T = T_new
+        return self._at_break(fn, target, name, what, unit)
+
+    def _at_break(self, fn, target, name, what, unit) -> float:
         # the two ranges of a polynomial meet at 1000 K with a jump of ~1e-6;
         # a target inside that jump makes Newton cycle: the answer is 1000 K
         hi = fn(T_MID)
