@@ -169,7 +169,7 @@ def test_stack_temperature_error_names_dew_point():
 
 @pytest.mark.parametrize("call,name,err", [
     (lambda: ex.exhaust_flow(-5.0, 1.8, METHANE), "fuel_power_kw:", CellInputError),
-    (lambda: ex.exhaust_flow(1000.0, 0.9, METHANE), "lambda:", CellInputError),
+    (lambda: ex.exhaust_flow(1000.0, 0.9, METHANE), "lambda_:", CellInputError),
     (lambda: ex.exhaust_flow(1000.0, 1.8, METHANE, "medium"), "kind:", CellTypeError),
     (lambda: ex.exhaust_flow(1000.0, 1.8, METHANE, "net", 25.0, 1.5), "rh_ambient:", CellInputError),
     (lambda: ex.exhaust_flow(1000.0, 1.8, METHANE, "net", 25.0, 0.3, 0.0), "p_ambient_bar:", CellInputError),

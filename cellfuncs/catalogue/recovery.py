@@ -255,7 +255,7 @@ _FRACTIONS_REQ = Arg(
     "fractions",
     "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near 1)",
     kind="range")
-_LAMBDA = Arg("lambda", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, from the "
+_LAMBDA = Arg("lambda_", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, from the "
               "engine's declared datasheet", "-")
 
 

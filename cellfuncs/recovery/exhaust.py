@@ -63,7 +63,7 @@ def _comp(comp):
 
 
 def _lambda(lambda_: float) -> float:
-    return check_range("lambda", lambda_, 1.0, 20.0, "", where="complete combustion needs lambda >= 1")
+    return check_range("lambda_", lambda_, 1.0, 20.0, "", where="complete combustion needs lambda >= 1")
 
 
 def ambient_water(t_ambient: float = 25.0, rh_ambient: float = 0.3, p_ambient_bar: float = 1.0) -> float:
