@@ -37,20 +37,29 @@ ARRANGEMENTS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
 OUTPUTS_RATE = ("t_out", "duty", "t_hot_out")
 
 
+_EPS: list = []
+
+
 def _effectiveness(ntu: float, c_ratio: float, arrangement: str) -> float:
     """ε(NTU, Cr) from the heat-exchanger family (one ε-NTU implementation)."""
-    try:
-        from cellfuncs.heat_transfer.effectiveness import epsilon
-    except ImportError:  # TEMPORARY until branch hx is merged: reference library
-        import ht
+    if not _EPS:
+        try:
+            from cellfuncs.heat_transfer.effectiveness import epsilon
+        except ImportError:  # TEMPORARY until branch hx is merged: reference library
+            epsilon = _ht_epsilon
+        _EPS.append(epsilon)
+    return _EPS[0](ntu, c_ratio, arrangement)
 
-        sub = {"counter": ("counterflow", None), "parallel": ("parallel", None),
-               "cross": ("crossflow", None), "cross-cmin-mixed": ("crossflow, mixed Cmin", None),
-               "cross-cmax-mixed": ("crossflow, mixed Cmax", None),
-               "1-2": ("S&T", 1), "2-4": ("S&T", 2), "3-6": ("S&T", 3), "4-8": ("S&T", 4)}
-        name, n = sub[arrangement]
-        return ht.effectiveness_from_NTU(ntu, c_ratio, name, n_shell_tube=n)
-    return epsilon(ntu, c_ratio, arrangement)
+
+def _ht_epsilon(ntu, c_ratio, arrangement):  # TEMPORARY, removed when hx is merged
+    import ht
+
+    sub = {"counter": ("counterflow", None), "parallel": ("parallel", None),
+           "cross": ("crossflow", None), "cross-cmin-mixed": ("crossflow, mixed Cmin", None),
+           "cross-cmax-mixed": ("crossflow, mixed Cmax", None),
+           "1-2": ("S&T", 1), "2-4": ("S&T", 2), "3-6": ("S&T", 3), "4-8": ("S&T", 4)}
+    name, n = sub[arrangement]
+    return ht.effectiveness_from_NTU(ntu, c_ratio, name, n_shell_tube=n)
 
 
 def _check_arrangement(arrangement: str) -> str:
@@ -250,18 +259,22 @@ def rate_chain_water(t_return: float, flow_m3h: float, hot_t_in, hot_c_kw_k, ua_
             continue
         t_out = t
         for _ in range(30):
-            q, _tc, t_hot_out = rate_stage(t, m * cp, th, ch, ua, arrangement)
+            q = rate_stage(t, m * cp, th, ch, ua, arrangement)[0]
             h_out = h + q / m
             _beyond("ua_kw_k", k, h_out, bounds, "heats" if q >= 0 else "cools")
             t_out = _w.temperature_from_enthalpy(h_out, t + q / (m * cp), glycol_fraction, glycol)
             cp_new = (h_out - h) / (t_out - t) if abs(t_out - t) > 1e-7 else cp
-            if abs(cp_new - cp) <= 1e-13 * cp:
-                cp = cp_new
-                break
+            done = abs(cp_new - cp) <= 1e-12 * cp
             cp = cp_new
+            if done:
+                break
+        # final pass with the converged mean cp: duty, hot outlet and water outlet agree
         q, _tc, t_hot_out = rate_stage(t, m * cp, th, ch, ua, arrangement)
+        h_out = h + q / m
+        _beyond("ua_kw_k", k, h_out, bounds, "heats" if q >= 0 else "cools")
+        t_out = _w.temperature_from_enthalpy(h_out, t_out, glycol_fraction, glycol)
         out.append({"duty": q, "t_in": t, "t_out": t_out, "t_hot_out": t_hot_out, "c_water": m * cp})
-        h, t = h + q / m, t_out
+        h, t = h_out, t_out
     return out
 
 
