@@ -15,6 +15,8 @@ one receives water hotter than itself and takes heat out of the circuit
 
 from __future__ import annotations
 
+import math
+
 from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
 from cellfuncs.recovery import water as _w
 from cellfuncs.recovery._cells import layout, stage_cells
@@ -126,6 +128,11 @@ def _stage_data(hot_t_in, hot_c_kw_k, ua_kw_k) -> list:
         raise CellInputError(f"ua_kw_k: {len(ua_kw_k)} cells given, hot_t_in has {n}; give one per stage")
     out = []
     for k, (th, ch, ua) in enumerate(zip(hot_t_in, hot_c_kw_k, ua_kw_k), start=1):
+        for name, v in (("hot_t_in", th), ("hot_c_kw_k", ch), ("ua_kw_k", ua)):
+            if v is not None and not (isinstance(v, (int, float)) and not isinstance(v, bool)):
+                raise CellTypeError(f"{name}: stage {k} {v!r} is not a number")
+            if v is not None and not math.isfinite(v):
+                raise CellInputError(f"{name}: stage {k} {v} is not a finite number")
         if ua is None or ua == 0:
             out.append((th, ch, 0.0))
             continue
@@ -138,7 +145,8 @@ def _stage_data(hot_t_in, hot_c_kw_k, ua_kw_k) -> list:
             raise CellInputError(f"hot_c_kw_k: {s} is blank but has ua_kw_k {fmt(ua)} kW/K")
         if ch <= 0:
             raise CellInputError(f"hot_c_kw_k: {s} {fmt(ch)} kW/K must be above 0 kW/K")
-        check_range("hot_t_in", th, -273.15, None, "°C", lo_open=True)
+        if th <= -273.15:
+            raise CellInputError(f"hot_t_in: {s} {fmt(th)} °C is not above absolute zero")
         out.append((th, ch, ua))
     return out
 
