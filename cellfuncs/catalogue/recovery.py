@@ -1,5 +1,347 @@
-"""Catalogue entries of the recovery family."""
+"""Catalogue entries of the recovery family: hot-water circuits, exhaust heat,
+genset and engine basics, plant balance.
 
-from cellfuncs.catalogue.spec import Arg, CellFunction  # noqa: F401
+All results are estimates for tendering; engine data come from the engine's
+declared datasheet; final design follows local codes and licensed engineers.
+"""
 
-ENTRIES: list = []
+from cellfuncs.catalogue.spec import REQUIRED, Arg, CellFunction
+
+CAT_HR = "cellfuncs · heat recovery"
+CAT_ENG = "cellfuncs · engine"
+CAT_PLANT = "cellfuncs · plant balance"
+
+_REC = "cellfuncs.recovery."
+_ENG = "cellfuncs.engine."
+
+GLYCOL_WORDS = ("ethylene", "propylene")
+GLYCOL_ALIASES = {"eg": "ethylene", "meg": "ethylene", "ethyleneglycol": "ethylene",
+                  "pg": "propylene", "mpg": "propylene", "propyleneglycol": "propylene"}
+ARRANGEMENT_WORDS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
+                     "cross-cmin-mixed", "cross-cmax-mixed")
+ARRANGEMENT_ALIASES = {"counterflow": "counter", "parallelflow": "parallel"}
+
+_PROPS = ("Water: IAPWS-95 at 3 bar(a) (liquid 0 to 133.52 °C); water-glycol: CoolProp "
+          "INCOMP::MEG/MPG (Melinder 2010), mass fraction 0-0.6, freezing point to 100 °C")
+
+
+def _glycol_fraction():
+    return Arg("glycol_fraction", "Glycol mass fraction of the circuit fluid, 0 for water, "
+               "at most 0.6", "-", default=0.0)
+
+
+def _glycol():
+    return Arg("glycol", "Glycol in the circuit fluid (ignored when glycol_fraction is 0)",
+               kind="option", default="ethylene", options=GLYCOL_WORDS, aliases=GLYCOL_ALIASES)
+
+
+def _t(name, what):
+    return Arg(name, what, "°C")
+
+
+def _flow(name="flow_m3h", what="Hot-water volume flow, measured at the water's inlet temperature"):
+    return Arg(name, what, "m³/h")
+
+
+_CHAIN_FLOW = ("Circuit volume flow, measured at the water's inlet temperature, for a chain "
+               "the return temperature t_return")
+
+HOT_WATER = [
+    CellFunction(
+        name="HW_CP",
+        target=_REC + "water:hw_cp",
+        category=CAT_HR,
+        description="Specific heat capacity of hot water or water-glycol at 3 bar(a). " + _PROPS + ".",
+        args=(_t("t", "Fluid temperature"), _glycol_fraction(), _glycol()),
+        returns="specific heat capacity cp [kJ/(kg·K)]",
+    ),
+    CellFunction(
+        name="HW_DENSITY",
+        target=_REC + "water:hw_density",
+        category=CAT_HR,
+        description="Density of hot water or water-glycol at 3 bar(a). " + _PROPS + ".",
+        args=(_t("t", "Fluid temperature"), _glycol_fraction(), _glycol()),
+        returns="density [kg/m³]",
+    ),
+    CellFunction(
+        name="HW_FLOW",
+        target=_REC + "water:hw_flow",
+        category=CAT_HR,
+        description="Hot-water volume flow (measured at t_in) that carries duty_kw between t_in "
+                    "and t_out, from the enthalpy rise at 3 bar(a). An estimate for tendering.",
+        args=(Arg("duty_kw", "Heat added to the water (negative if it is cooled)", "kW"),
+              _t("t_in", "Water inlet temperature; the flow is measured here"),
+              _t("t_out", "Water outlet temperature"),
+              _glycol_fraction(), _glycol()),
+        returns="volume flow at t_in [m³/h]",
+    ),
+    CellFunction(
+        name="HW_DUTY",
+        target=_REC + "water:hw_duty",
+        category=CAT_HR,
+        description="Duty of a hot-water flow (volume measured at t_in) heated from t_in to t_out, "
+                    "from the enthalpy rise at 3 bar(a). An estimate for tendering.",
+        args=(_flow(), _t("t_in", "Water inlet temperature; the flow is measured here"),
+              _t("t_out", "Water outlet temperature"), _glycol_fraction(), _glycol()),
+        returns="duty [kW], negative when the water is cooled",
+    ),
+    CellFunction(
+        name="HW_CHAIN",
+        target=_REC + "chain:cell_chain",
+        category=CAT_HR,
+        description="Water temperature after each heat exchanger of a hot-water chain when the "
+                    "listed duties are added in the listed order (array formula), or after stage "
+                    "k. Boiling at 3 bar(a) (133.52 °C) is an error naming the stage.",
+        args=(_t("t_return", "Return temperature entering the first exchanger"),
+              _flow(what=_CHAIN_FLOW),
+              Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
+                  "[kW]; a blank cell is a stage with no duty", kind="range"),
+              _glycol_fraction(), _glycol(),
+              Arg("stage", "Return only the temperature after this stage (1 = first); blank "
+                  "returns every stage", kind="integer", default=None)),
+        returns="water temperature after each stage, laid out like duties_kw [°C]",
+        shape="array",
+    ),
+    CellFunction(
+        name="HW_CHAIN_RATE",
+        target=_REC + "chain:cell_chain_rate",
+        category=CAT_HR,
+        description="Rates a hot-water chain of given exchangers (hot-side inlet temperature, "
+                    "capacity rate and UA per stage, in water-flow order) by epsilon-NTU; a stage "
+                    "colder than the water reaching it gives a negative duty. Array formula.",
+        args=(_t("t_return", "Return temperature entering the first exchanger"),
+              _flow(what=_CHAIN_FLOW),
+              Arg("hot_t_in", "Hot-side inlet temperature of each stage, one row or column [°C]",
+                  kind="range"),
+              Arg("hot_c_kw_k", "Hot-side capacity rate (mass flow times cp) of each stage, one "
+                  "row or column [kW/K]", kind="range"),
+              Arg("ua_kw_k", "UA of each stage, one row or column [kW/K]; blank or 0 = no exchange",
+                  kind="range"),
+              Arg("arrangement", "Flow arrangement of every stage", kind="option",
+                  default="counter", options=ARRANGEMENT_WORDS, aliases=ARRANGEMENT_ALIASES),
+              Arg("output", "Result per stage: water outlet, duty or hot-side outlet", kind="option",
+                  default="t_out", options=("t_out", "duty", "t_hot_out"),
+                  aliases={"tout": "t_out", "thotout": "t_hot_out", "q": "duty"}),
+              _glycol_fraction(), _glycol()),
+        returns="per stage: water outlet temperature [°C], duty [kW] or hot-side outlet "
+                "temperature [°C], laid out like hot_t_in",
+        shape="array",
+    ),
+    CellFunction(
+        name="HW_CHAIN_CHECK",
+        target=_REC + "chain:cell_chain_check",
+        category=CAT_HR,
+        description='"OK", or one line naming the first stage of a hot-water chain where the water '
+                    "would leave hotter than its source minus the minimum approach, or would boil; "
+                    "fix by reordering, splitting or bypassing.",
+        args=(_t("t_return", "Return temperature entering the first exchanger"),
+              _flow(what=_CHAIN_FLOW),
+              Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
+                  "[kW]; a blank cell is a stage with no duty", kind="range"),
+              Arg("hot_t_max", "Hottest hot-side temperature of each stage's source, one cell per "
+                  "stage or one for all [°C]", kind="range"),
+              Arg("min_approach", "Smallest allowed difference between the source temperature "
+                  "and the water leaving the stage", "K", default=5.0),
+              _glycol_fraction(), _glycol()),
+        returns="\"OK\" or a one-line finding [text]",
+    ),
+]
+
+_DATASHEET = "from the engine's declared datasheet"
+
+ENGINE = [
+    CellFunction(
+        name="GEN_SPEED",
+        target=_ENG + "genset:gen_speed",
+        category=CAT_ENG,
+        description="Synchronous speed of a generator: 60 times the grid frequency divided by the "
+                    "number of pole pairs (2 pole pairs: 1,500 rpm at 50 Hz, 1,800 rpm at 60 Hz).",
+        args=(Arg("frequency_hz", "Grid frequency", "Hz"),
+              Arg("pole_pairs", "Number of pole pairs of the generator, a whole number", "-",
+                  kind="integer")),
+        returns="synchronous speed [rpm]",
+    ),
+    CellFunction(
+        name="GEN_POLE_PAIRS",
+        target=_ENG + "genset:gen_pole_pairs",
+        category=CAT_ENG,
+        description="Pole pairs of a synchronous generator from grid frequency and speed; an error "
+                    "when the speed is more than 0.5 % away from a synchronous speed.",
+        args=(Arg("frequency_hz", "Grid frequency", "Hz"),
+              Arg("speed_rpm", "Generator shaft speed " + _DATASHEET, "rpm")),
+        returns="pole pairs [-]",
+    ),
+    CellFunction(
+        name="ENGINE_BMEP",
+        target=_ENG + "bmep:engine_bmep",
+        category=CAT_ENG,
+        description="Brake mean effective pressure of a reciprocating engine from shaft power, total "
+                    "displacement and speed; a four-stroke engine fires each cylinder once per two "
+                    "crankshaft turns (BMEP = 1200·P/(V·n)).",
+        args=(Arg("shaft_power_kw", "Shaft (brake) power " + _DATASHEET, "kW"),
+              Arg("displacement_l", "Total swept volume of all cylinders", "l"),
+              Arg("speed_rpm", "Crankshaft speed", "rpm"),
+              Arg("strokes", "Strokes per working cycle, 4 or 2", "-", kind="integer", default=4)),
+        returns="brake mean effective pressure [bar]",
+    ),
+    CellFunction(
+        name="ENGINE_POWER",
+        target=_ENG + "bmep:engine_power",
+        category=CAT_ENG,
+        description="Shaft power of a reciprocating engine from brake mean effective pressure, total "
+                    "displacement and speed (inverse of ENGINE_BMEP).",
+        args=(Arg("bmep_bar", "Brake mean effective pressure", "bar"),
+              Arg("displacement_l", "Total swept volume of all cylinders", "l"),
+              Arg("speed_rpm", "Crankshaft speed", "rpm"),
+              Arg("strokes", "Strokes per working cycle, 4 or 2", "-", kind="integer", default=4)),
+        returns="shaft power [kW]",
+    ),
+]
+
+PLANT = [
+    CellFunction(
+        name="CHP_HEAT_RATE",
+        target=_REC + "plant:chp_heat_rate",
+        category=CAT_PLANT,
+        description="Heat rate of a generating set: fuel energy per kWh of electricity, 3600 divided "
+                    "by the electrical efficiency, on that efficiency's calorific-value basis.",
+        args=(Arg("electrical_efficiency", "Electrical efficiency, a fraction " + _DATASHEET, "-"),),
+        returns="heat rate [kJ/kWh]",
+    ),
+    CellFunction(
+        name="CHP_PES",
+        target=_REC + "plant:chp_pes",
+        category=CAT_PLANT,
+        description="Primary energy savings of cogeneration, 1 - 1/(η_th/ref_th + η_el/ref_el), per "
+                    "Directive 2012/27/EU Annex II. Reference efficiencies depend on fuel, year and "
+                    "country: take them from the applicable regulation.",
+        args=(Arg("electrical_efficiency", "CHP electrical efficiency, electricity over fuel input "
+                  "on net calorific value", "-"),
+              Arg("thermal_efficiency", "CHP heat efficiency, useful heat over fuel input on net "
+                  "calorific value", "-"),
+              Arg("ref_electrical_efficiency", "Harmonised reference efficiency for separate "
+                  "electricity production; depends on fuel, year and country (no default)", "-"),
+              Arg("ref_thermal_efficiency", "Harmonised reference efficiency for separate heat "
+                  "production; depends on fuel, year and country (no default)", "-")),
+        returns="primary energy savings [-] (high-efficiency cogeneration: >= 0.10)",
+    ),
+    CellFunction(
+        name="CHP_BALANCE",
+        target=_REC + "plant:chp_balance",
+        category=CAT_PLANT,
+        description="Energy balance of a CHP plant as fractions of the fuel power: total, electrical, "
+                    "thermal (the heat range summed, blanks skipped) or unaccounted losses. An "
+                    "estimate for tendering.",
+        args=(Arg("fuel_power_kw", "Fuel power input (state its calorific-value basis)", "kW"),
+              Arg("electrical_kw", "Electrical output", "kW"),
+              Arg("heat_kw", "Useful heat outputs, any range, summed; blank cells are skipped [kW]",
+                  kind="range"),
+              Arg("output", "Which fraction", kind="option", default="total",
+                  options=("total", "electrical", "thermal", "unaccounted"),
+                  aliases={"losses": "unaccounted", "heat": "thermal", "power": "electrical"})),
+        returns="fraction of the fuel power [-]",
+    ),
+]
+
+_COMPONENTS = Arg(
+    "components",
+    "Range of fuel-gas component names (formula or common name, as in the GAS_ functions), or a "
+    "two-column range of names and amounts when fractions is omitted", kind="range")
+_FRACTIONS = Arg(
+    "fractions",
+    "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near "
+    "1); omit for a two-column components range", kind="range", default=None)
+_FRACTIONS_REQ = Arg(
+    "fractions",
+    "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near 1)",
+    kind="range")
+_LAMBDA = Arg("lambda_", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, from the "
+              "engine's declared datasheet", "-")
+
+
+def _ambient():
+    return (Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the exhaust)",
+                "°C", default=25.0),
+            Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1", "-", default=0.3),
+            Arg("p_ambient_bar", "Ambient pressure", "bar(a)", default=1.0))
+
+
+_EXH_NOTE = " An estimate for tendering."
+
+EXHAUST = [
+    CellFunction(
+        name="EXH_FLOW",
+        target=_REC + "exhaust:cell_exh_flow",
+        category=CAT_HR,
+        description="Wet exhaust mass flow of a gas engine: fuel + lambda times the stoichiometric "
+                    "dry air + the air's water vapour, complete combustion." + _EXH_NOTE,
+        args=(Arg("fuel_power_kw", "Fuel power input " + _DATASHEET + ", on the kind of calorific "
+                  "value given (at 25 °C combustion reference)", "kW"),
+              _LAMBDA, _COMPONENTS, _FRACTIONS,
+              Arg("kind", "Calorific value the fuel power refers to, net (LHV) or gross (HHV)",
+                  kind="option", default="net", options=("gross", "net"),
+                  aliases={"lhv": "net", "hhv": "gross", "inferior": "net", "superior": "gross"}),
+              *_ambient()),
+        returns="wet exhaust mass flow [kg/h]",
+    ),
+    CellFunction(
+        name="EXH_COMPOSITION",
+        target=_REC + "exhaust:cell_exh_composition",
+        category=CAT_HR,
+        description="Mole fraction of CO2, H2O, O2, N2, Ar or SO2 in a gas engine's exhaust (complete "
+                    "combustion, H2S to SO2, excess O2, the humid air's water and argon), wet or dry "
+                    "basis.",
+        args=(_LAMBDA, _COMPONENTS, _FRACTIONS_REQ,
+              Arg("species", "Exhaust species", kind="option", default=REQUIRED,
+                  options=("co2", "h2o", "o2", "n2", "ar", "so2"),
+                  aliases={"carbondioxide": "co2", "water": "h2o", "oxygen": "o2",
+                           "nitrogen": "n2", "argon": "ar", "sulfurdioxide": "so2"}),
+              Arg("basis", "Wet exhaust, or dry (water removed; h2o is then 0)", kind="option",
+                  default="wet", options=("wet", "dry")),
+              *_ambient()),
+        returns="mole (volume) fraction [-]",
+    ),
+    CellFunction(
+        name="EXH_HEAT",
+        target=_REC + "exhaust:cell_exh_heat",
+        category=CAT_HR,
+        description="Sensible heat a gas engine's exhaust gives up between t_in and t_out (ideal-gas "
+                    "mixture, GRI-Mech 3.0 NASA-7 data); t_out below the water dew point is an error. "
+                    "About 120 °C is the usual stack limit.",
+        args=(Arg("exhaust_flow_kg_h", "Wet exhaust mass flow " + _DATASHEET + " or from EXH_FLOW",
+                  "kg/h"),
+              _t("t_in", "Exhaust temperature entering the exchanger"),
+              _t("t_out", "Exhaust (stack) temperature leaving the exchanger; about 120 °C is the "
+                 "usual design limit for natural gas to stay clear of water and acid condensation "
+                 "(common practice), and below the water dew point (at 1.01325 bar(a)) is an error"),
+              _LAMBDA, _COMPONENTS, _FRACTIONS, *_ambient()),
+        returns="heat given up by the exhaust [kW], sensible only",
+    ),
+    CellFunction(
+        name="EXH_DEWPOINT",
+        target=_REC + "exhaust:cell_exh_dewpoint",
+        category=CAT_HR,
+        description="Water dew point of a gas engine's exhaust at a pressure: saturation temperature "
+                    "of water (IAPWS-IF97) at its partial pressure. The acid dew point of sulfur-"
+                    "bearing gas is higher and not computed.",
+        args=(_LAMBDA, _COMPONENTS, _FRACTIONS,
+              Arg("p_bar", "Exhaust pressure", "bar(a)", default=1.01325), *_ambient()),
+        returns="water dew point [°C]",
+    ),
+    CellFunction(
+        name="EXH_O2_CORRECT",
+        target=_REC + "exhaust:o2_correct",
+        category=CAT_HR,
+        description="An emission concentration referred to a reference O2 content: c·(20.9 − "
+                    "O2_ref)/(20.9 − O2_meas), O2 in vol-% dry (common practice in emission permits; "
+                    "some use 21: check the permit).",
+        args=(Arg("concentration", "Measured concentration on a dry basis, any unit (e.g. mg/m³)",
+                  "-"),
+              Arg("o2_measured", "O2 measured, vol-% dry, below 20.9", "vol-%"),
+              Arg("o2_reference", "Reference O2 of the limit value, vol-% dry (e.g. 5 or 15)",
+                  "vol-%")),
+        returns="concentration at the reference O2 [unit of concentration]",
+    ),
+]
+
+ENTRIES: list = HOT_WATER + EXHAUST + ENGINE + PLANT
