@@ -214,6 +214,9 @@ def run(ns) -> int:
     fd, tmp = tempfile.mkstemp(prefix=".cellfuncs-", suffix=".csv", dir=folder)
     with os.fdopen(fd, "w", encoding="utf-8", newline="") as fh:
         fh.write(buf.getvalue())
+    from cellfuncs.xlsx import _umask
+
+    os.chmod(tmp, 0o666 & ~_umask())
     os.replace(tmp, out)
     print(f"{len(cases)} cases, {len(runner.outputs)} outputs, {n_err} error cells; wrote {out}",
           file=sys.stderr)

@@ -226,11 +226,18 @@ class Package:
                     zi.compress_type = zipfile.ZIP_DEFLATED
                     zi.external_attr = info.external_attr
                     zf.writestr(zi, self.parts[info.filename])
+            os.chmod(tmp, 0o666 & ~_umask())
             os.replace(tmp, out_path)
         except BaseException:
             if os.path.exists(tmp):
                 os.unlink(tmp)
             raise
+
+
+def _umask() -> int:
+    mask = os.umask(0)
+    os.umask(mask)
+    return mask
 
 
 class ErrorText(str):

@@ -32,7 +32,7 @@ def test_entry_is_complete(entry):
         assert a.name == a.name.lower()
         if a.kind == "option":
             assert a.options and all(o == o.lower() for o in a.options)
-            assert a.default is None or a.default in a.options
+            assert not a.optional or a.default is None or a.default in a.options
         if a.optional:
             seen_optional = True
         else:

@@ -162,12 +162,18 @@ def test_chain_rate_water_stage_by_stage_against_hx_rate():
     for arr in ("counter", "1-2", "cross"):
         res = rate_chain_water(70.0, 36.0, th, ch, ua, arr)
         for k, r in enumerate(res):
-            assert r["duty"] == pytest.approx(
-                hx_rate(th[k], r["t_in"], ch[k], r["c_water"], ua[k], arr, "duty"), rel=1e-9)
-            assert r["t_hot_out"] == pytest.approx(
-                hx_rate(th[k], r["t_in"], ch[k], r["c_water"], ua[k], arr, "t_hot_out"), rel=1e-9)
-            assert r["t_out"] == pytest.approx(
-                hx_rate(th[k], r["t_in"], ch[k], r["c_water"], ua[k], arr, "t_cold_out"), rel=1e-9)
+            if th[k] >= r["t_in"]:
+                args = (th[k], r["t_in"], ch[k], r["c_water"], ua[k], arr)
+                assert r["duty"] == pytest.approx(hx_rate(*args, "duty"), rel=1e-9)
+                assert r["t_hot_out"] == pytest.approx(hx_rate(*args, "t_hot_out"), rel=1e-9)
+                assert r["t_out"] == pytest.approx(hx_rate(*args, "t_cold_out"), rel=1e-9)
+            else:
+                # the source is colder than the water: the water heats it. HX_RATE with the
+                # streams swapped (these arrangements are symmetric in the two streams).
+                args = (r["t_in"], th[k], r["c_water"], ch[k], ua[k], arr)
+                assert r["duty"] == pytest.approx(-hx_rate(*args, "duty"), rel=1e-9)
+                assert r["t_hot_out"] == pytest.approx(hx_rate(*args, "t_cold_out"), rel=1e-9)
+                assert r["t_out"] == pytest.approx(hx_rate(*args, "t_hot_out"), rel=1e-9)
 
 
 def test_chain_rate_water_stages_against_ht():
@@ -302,7 +308,7 @@ def test_flow_duty_round_trip(q, a, b, x, g):
 
 @settings(max_examples=80, deadline=None)
 @given(duties=st.lists(st.floats(-200.0, 800.0), min_size=1, max_size=6),
-       flow=st.floats(40.0, 200.0), t_ret=st.floats(40.0, 70.0))
+       flow=st.floats(80.0, 200.0), t_ret=st.floats(40.0, 70.0))  # stays below boiling at 3 bar
 def test_chain_energy_adds_up(duties, flow, t_ret):
     temps_ = chain_temperatures(t_ret, flow, duties)
     total = hw_duty(flow, t_ret, temps_[-1])

@@ -53,6 +53,7 @@ def named_values(path: str, res) -> dict:
 
 def build_all(out_dir: str) -> list:
     """Build every demo workbook; return summary lines for the terminal."""
+    os.makedirs(out_dir, exist_ok=True)
     lines = []
     for name in WORKBOOKS:
         mod = importlib.import_module(f"cellfuncs.demo.{name}")

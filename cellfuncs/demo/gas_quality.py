@@ -9,6 +9,8 @@ fuel power.
 
 from __future__ import annotations
 
+from openpyxl.styles import Font
+
 from cellfuncs.demo.book import DemoBook
 
 FILENAME = "gas_quality.xlsx"
@@ -55,7 +57,7 @@ def build(path: str) -> None:
     c = b.sheet("Properties", "Gas properties (ISO 6976:2016 on the chosen reference conditions)")
     c.table_row("", list(GASES), "")
     for j in range(4):
-        c.ws.cell(c.row - 1, 2 + j).font = c.ws["A1"].font.copy(size=11)
+        c.ws.cell(c.row - 1, 2 + j).font = Font(bold=True)
 
     def row(label, template, unit, fmt="0.000", name_prefix=None):
         r = c.table_row(label, [template.format(g=f"gas_{i + 1}", i=i + 1) for i in range(4)], unit, fmt)

@@ -20,7 +20,7 @@ GAS = [("methane", 91.4), ("ethane", 4.9), ("propane", 1.1), ("n-butane", 0.25),
        ("n-pentane", 0.05), ("nitrogen", 1.3), ("carbon dioxide", 0.8)]
 SOURCES = ("oil cooler", "HT charge-air stage", "jacket water", "exhaust")
 ORDER_A = ("oil cooler", "jacket water", "HT charge-air stage", "exhaust")
-ORDER_B = ("jacket water", "HT charge-air stage", "oil cooler", "exhaust")
+ORDER_B = ("exhaust", "jacket water", "HT charge-air stage", "oil cooler")
 ARRANGEMENTS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross", "cross-cmin-mixed",
                 "cross-cmax-mixed")
 AMB = "t_amb,rh_amb,p_amb"
