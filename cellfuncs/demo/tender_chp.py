@@ -139,8 +139,9 @@ def build(path: str) -> None:
         temps = s.array("Water temperature after each stage", f"=HW_CHAIN(t_return,{prefix}_flow,{duties})", 4,
                         "°C", fmt="0.0")
         sheet_q = "'" + title + "'"
-        b.name(f"{prefix}_temps", sheet_q + "!" + "$B${r}:$E${r}".format(r=s.row - 1))
-        b.name(f"{prefix}_order", sheet_q + "!" + f"$B${order_row}:$E${order_row}")
+        short = prefix.replace("out_", "chain_")  # ranges are not case outputs (those are single cells)
+        b.name(f"{short}_temps", sheet_q + "!" + "$B${r}:$E${r}".format(r=s.row - 1))
+        b.name(f"{short}_order", sheet_q + "!" + f"$B${order_row}:$E${order_row}")
         assert temps.endswith(f"B{s.row - 1}:E{s.row - 1}")
         s.calc("Check of the order", f"=HW_CHAIN_CHECK(t_return,{prefix}_flow,{duties},{hots},min_approach)",
                "", name=f"{prefix}_check")
@@ -153,19 +154,19 @@ def build(path: str) -> None:
     h = b.sheet("Exchangers", "Heat-exchanger sizing (LMTD, F)")
     h.note("Jacket-water plate exchanger: stage of the chosen order that takes the jacket water.")
     # position of the jacket-water stage and the water temperatures around it
-    h.calc("Stage number of the jacket water", "=MATCH(\"jacket water\",out_a_order,0)", "-",
+    h.calc("Stage number of the jacket water", "=MATCH(\"jacket water\",chain_a_order,0)", "-",
            name="jw_stage", fmt="0")
-    h.calc("Water into the jacket-water exchanger", "=IF(jw_stage=1,t_return,INDEX(out_a_temps,"
+    h.calc("Water into the jacket-water exchanger", "=IF(jw_stage=1,t_return,INDEX(chain_a_temps,"
            "jw_stage-1))", "°C", name="jw_w_in", fmt="0.0")
-    h.calc("Water out of the jacket-water exchanger", "=INDEX(out_a_temps,jw_stage)", "°C",
+    h.calc("Water out of the jacket-water exchanger", "=INDEX(chain_a_temps,jw_stage)", "°C",
            name="jw_w_out", fmt="0.0")
     h.calc("Plate exchanger area", '=HX_AREA(q_jw,u_plate,t_jw_in,t_jw_out,jw_w_in,jw_w_out,"counter")', "m²",
            name="out_area_plate", result=True, fmt="0.0")
-    h.calc("Stage number of the exhaust", "=MATCH(\"exhaust\",out_a_order,0)", "-",
+    h.calc("Stage number of the exhaust", "=MATCH(\"exhaust\",chain_a_order,0)", "-",
            name="ex_stage", fmt="0")
-    h.calc("Water into the exhaust exchanger", "=IF(ex_stage=1,t_return,INDEX(out_a_temps,"
+    h.calc("Water into the exhaust exchanger", "=IF(ex_stage=1,t_return,INDEX(chain_a_temps,"
            "ex_stage-1))", "°C", name="ex_w_in", fmt="0.0")
-    h.calc("Water out of the exhaust exchanger", "=INDEX(out_a_temps,ex_stage)", "°C",
+    h.calc("Water out of the exhaust exchanger", "=INDEX(chain_a_temps,ex_stage)", "°C",
            name="ex_w_out", fmt="0.0")
     h.calc("Exhaust exchanger LMTD (counterflow)", '=HX_LMTD(t_exh,t_stack,ex_w_in,ex_w_out,"counter")', "K",
            name="ex_lmtd", fmt="0.0")
