@@ -39,29 +39,17 @@ ARRANGEMENTS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
 OUTPUTS_RATE = ("t_out", "duty", "t_hot_out")
 
 
-_EPS: list = []
-
-
 def _effectiveness(ntu: float, c_ratio: float, arrangement: str) -> float:
-    """ε(NTU, Cr) from the heat-exchanger family (one ε-NTU implementation)."""
-    if not _EPS:
-        try:
-            from cellfuncs.heat_transfer.effectiveness import epsilon
-        except ImportError:  # TEMPORARY until branch hx is merged: reference library
-            epsilon = _ht_epsilon
-        _EPS.append(epsilon)
-    return _EPS[0](ntu, c_ratio, arrangement)
+    """ε(NTU, Cr) from the heat-exchanger family (the one ε-NTU implementation)."""
+    return _epsilon(ntu, c_ratio, arrangement)
 
 
-def _ht_epsilon(ntu, c_ratio, arrangement):  # TEMPORARY, removed when hx is merged
-    import ht
+def _epsilon(ntu, c_ratio, arrangement):
+    global _epsilon
+    from cellfuncs.heat_transfer.effectiveness import epsilon
 
-    sub = {"counter": ("counterflow", None), "parallel": ("parallel", None),
-           "cross": ("crossflow", None), "cross-cmin-mixed": ("crossflow, mixed Cmin", None),
-           "cross-cmax-mixed": ("crossflow, mixed Cmax", None),
-           "1-2": ("S&T", 1), "2-4": ("S&T", 2), "3-6": ("S&T", 3), "4-8": ("S&T", 4)}
-    name, n = sub[arrangement]
-    return ht.effectiveness_from_NTU(ntu, c_ratio, name, n_shell_tube=n)
+    _epsilon = epsilon  # resolve the import once
+    return epsilon(ntu, c_ratio, arrangement)
 
 
 def _check_arrangement(arrangement: str) -> str:
