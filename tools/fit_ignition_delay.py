@@ -6,7 +6,7 @@ temperature rise.  Least squares on ln tau = ln A − a ln p + B/T.
 
     /tmp/venv/bin/python tools/fit_ignition_delay.py
 
-Result recorded in docs/methods_chargeair.md (knock section).  Cantera is not
+Result recorded in docs/methods.md (knock section).  Cantera is not
 a run-time dependency of cellfuncs.
 """
 

@@ -9,7 +9,7 @@ Two methods:
     butane equivalent, the combustibles are split into partial mixtures that
     each lie in one diagram and share one methane number, and the inert diagram
     corrects for CO2 and N2.  How the split is found is described in
-    :func:`split_combustibles` and in docs/methods_mn.md.
+    :func:`split_combustibles` and in docs/methods.md.
 ``"linear"``
     Kubesh, King & Liss (1992): a linear motor octane number (MON) from the
     mole fractions of methane, ethane, propane, butanes, CO2 and N2, and
@@ -287,7 +287,7 @@ def methane_number_en16726(comp) -> float:
     P the inert polynomial, x the combustibles and y the CO2 in vol-% of the
     whole dry gas (N2 the rest).  The figures are unverified against the
     standard's Table A.10 (see the data file's provenance and open questions,
-    and docs/methods_mn.md).  Estimate for tendering.
+    and docs/methods.md).  Estimate for tendering.
 
     References
     ----------

@@ -5,7 +5,7 @@ combustibles into partial mixtures, each inside one of the annex's diagrams,
 such that all partial mixtures have the same methane number.  Such a split is
 not unique; this module fixes one deterministically by *plans* in which each
 group has a fixed partner in a fixed diagram (see :func:`split_combustibles`
-and docs/methods_mn.md).  For a trial methane number every partial mixture
+and docs/methods.md).  For a trial methane number every partial mixture
 then needs a definite amount of its partner ("hub") group, and the trial value
 is moved until the need equals what the gas holds: a one-dimensional root
 with a monotone residual, so the result is unique for the plan.
