@@ -21,7 +21,7 @@ from __future__ import annotations
 import itertools
 import math
 
-from cellfuncs.catalogue.spec import CellFunction
+from cellfuncs.catalogue.spec import REQUIRED, CellFunction
 from cellfuncs.errors import CellInputError, CellTypeError
 
 __all__ = ["coerce_args", "call", "result_to_cells", "is_blank"]
@@ -105,7 +105,7 @@ def _cell(v):
         return str(v)
 
 
-_PLAIN_CELL_TYPES = frozenset((float, type(None)))
+_PLAIN_RANGE_TYPES = frozenset((float, str, type(None)))
 _chain = itertools.chain.from_iterable
 
 
@@ -116,13 +116,10 @@ def _range(arg, v):
             rows = tuple(map(tuple, v))
         except TypeError:
             rows = None
-        if rows is not None and len(set(map(len, rows))) == 1:
-            types = set(map(type, _chain(rows)))
-            if types <= _PLAIN_CELL_TYPES:
+        if rows is not None:
+            # floats, text and blanks pass as they are (a cell holding only spaces stays text)
+            if set(map(type, _chain(rows))) <= _PLAIN_RANGE_TYPES and "" not in _chain(rows):
                 return rows
-            if types <= _PLAIN_CELL_TYPES | {str}:
-                if all(c.strip() for c in _chain(rows) if type(c) is str):
-                    return rows
     if isinstance(v, (list, tuple)):
         if not v:
             return ()
@@ -185,8 +182,13 @@ def coerce_args(entry: CellFunction, values: tuple) -> list:
     out = []
     for i, arg in enumerate(args):
         v = values[i] if i < n else None
-        # fast path: what Excel hands over for a number cell
-        if type(v) is float and arg.kind == "number" and _isfinite(v):
+        kind = arg.kind
+        # fast paths: what Excel hands over for a number cell, an option word, a blank
+        if type(v) is float and kind == "number" and _isfinite(v):
+            out.append(v)
+        elif v is None and arg.default is not REQUIRED and kind != "range":
+            out.append(arg.default)
+        elif type(v) is str and kind == "option" and v in arg.options:
             out.append(v)
         else:
             out.append(_one(arg, v))
