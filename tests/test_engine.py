@@ -84,3 +84,11 @@ def test_power_inverts_bmep(p, v, n, strokes):
 @given(f=st.sampled_from([50.0, 60.0, 25.0, 400.0]), p=st.integers(1, 40))
 def test_pole_pairs_inverts_speed(f, p):
     assert gen_pole_pairs(f, gen_speed(f, p)) == p
+
+
+def test_pole_pairs_tiny_speed_is_a_clear_error():
+    """Found by the hostile-input test: a speed of 2e-308 rpm overflowed the rounding."""
+    from cellfuncs.engine.genset import gen_pole_pairs
+
+    with pytest.raises(CellInputError, match="speed_rpm"):
+        gen_pole_pairs(1.0, 2.2250738585072014e-308)

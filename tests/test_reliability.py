@@ -5,6 +5,7 @@ exception, no NaN/inf in a result, and every error text names an argument.
 """
 
 import math
+import os
 
 import numpy as np
 import pytest
@@ -15,6 +16,7 @@ from hypothesis import strategies as st
 from cellfuncs import catalogue, excel, headless
 
 ENTRIES = catalogue.entries()
+FUZZ_EXAMPLES = int(os.environ.get("CELLFUNCS_FUZZ_EXAMPLES", "60"))
 headless.register()
 
 numbers = st.one_of(
@@ -104,7 +106,7 @@ def test_hostile_input_through_both_adapters(entry):
     xl_fn = getattr(excel, entry.name)
     engine_fn = headless._make(entry)
 
-    @settings(max_examples=40, deadline=None, database=None,
+    @settings(max_examples=FUZZ_EXAMPLES, deadline=None, database=None,
               suppress_health_check=list(HealthCheck))
     @given(args_for(entry))
     def run(values):

@@ -84,7 +84,9 @@ def gen_pole_pairs(frequency_hz: float, speed_rpm: float) -> float:
     See :func:`gen_speed`.
     """
     f = _frequency(frequency_hz)
-    n = check_range("speed_rpm", speed_rpm, 0.0, None, "rpm", lo_open=True)
+    # at most 1000 pole pairs, as gen_speed accepts: below that speed no generator is synchronous
+    n = check_range("speed_rpm", speed_rpm, 60.0 * f / 1000.5, None, "rpm",
+                    where=f"{fmt(60.0 * f / 1000.0)} rpm is 1000 pole pairs at {fmt(f)} Hz")
     p = max(1, round(60.0 * f / n))
     n_sync = 60.0 * f / p
     if abs(n - n_sync) > SYNC_TOLERANCE * n_sync:
