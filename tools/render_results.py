@@ -35,7 +35,9 @@ def main(book, png, sheet="Results"):
         subprocess.run(["soffice", "--headless", "--convert-to", "pdf", "--outdir", tmp, xlsx], check=True,
                        capture_output=True, timeout=180)
         pdf = os.path.join(tmp, "results.pdf")
-        subprocess.run(["pdftoppm", "-png", "-r", "110", "-f", "1", "-l", "1", "-singlefile", pdf,
+        # crop to the top-left part of the landscape page where the sheet is printed
+        subprocess.run(["pdftoppm", "-png", "-r", "110", "-f", "1", "-l", "1", "-singlefile",
+                        "-x", "70", "-y", "90", "-W", "880", "-H", "450", pdf,
                         os.path.join(tmp, "page")], check=True, timeout=120)
         shutil.move(os.path.join(tmp, "page.png"), png)
         print(f"wrote {png}")
