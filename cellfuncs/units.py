@@ -7,6 +7,7 @@ Trade units are defined on top of pint's defaults: ``bar(g)`` and ``psig``
 
 from __future__ import annotations
 
+import math
 from functools import lru_cache
 
 from cellfuncs.errors import CellInputError, CellTypeError
@@ -107,7 +108,11 @@ def convert(value: float, from_unit: str, to_unit: str) -> float:
     if ta and tb:
         (fa, oa), (fb, ob) = _TEMPERATURE[ta], _TEMPERATURE[tb]
         kelvin = value * fa + oa
+        if kelvin < 0:
+            raise CellInputError(f"value: {value:g} {from_unit} is below absolute zero")
         out = (kelvin - ob) / fb
+        if not math.isfinite(out):
+            raise CellInputError(f"value: {value:g} {from_unit} is too large to convert")
         return float(round(out, 12)) if abs(out) < 1e6 else out
     a, g_from, b, g_to = _plan(from_unit, to_unit)
     ureg = registry()
@@ -117,6 +122,8 @@ def convert(value: float, from_unit: str, to_unit: str) -> float:
     if g_to:
         q = q - ureg.Quantity(ATMOSPHERE_BAR, "bar")
     out = float(q.to(b).magnitude)
+    if not math.isfinite(out):
+        raise CellInputError(f"value: {value:g} {from_unit} is too large to convert to {to_unit}")
     return float(f"{out:.15g}")  # drop last-digit noise of the factor chain
 
 

@@ -39,3 +39,13 @@ def test_version_is_the_package_version():
     import cellfuncs
 
     assert excel.CELLFUNCS_VERSION() == cellfuncs.__version__
+
+
+def test_limits():
+    """Found by the hostile-input test: 1e308 °C overflowed; below absolute zero is refused."""
+    with pytest.raises(CellInputError, match="value"):
+        convert(9.987184082568422e307, "°C", "°F")
+    with pytest.raises(CellInputError, match="absolute zero"):
+        convert(-300.0, "°C", "K")
+    with pytest.raises(CellInputError, match="value"):
+        convert(1e308, "MMBtu", "J")
