@@ -4,18 +4,9 @@ from cellfuncs.catalogue.spec import Arg, CellFunction
 
 CATEGORY = "cellfuncs · gas"
 
-_COMPONENTS = Arg(
-    "components",
-    'Range of component names (formula or common name, e.g. CH4, methane, n-C4H10; "C6+" is '
-    "taken as n-hexane), or a two-column range of names and amounts when fractions is omitted",
-    kind="range",
-)
-_FRACTIONS = Arg(
-    "fractions",
-    "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum "
-    "near 1); normalised, a sum more than 2 % off is an error; omit for a two-column components range",
-    kind="range", default=None,
-)
+# the same composition arguments as every GAS_ function
+from cellfuncs.catalogue.gas import _COMPONENTS, _FRACTIONS  # noqa: E402
+
 _METHOD = Arg(
     "method",
     '"en16726": EN 16726:2015 Annex A (dry, O2-free; C5 and C6+ at most 3 vol-% each, 5 % '
