@@ -232,7 +232,24 @@ def result_to_cells(entry: CellFunction, result):
     return _check_out(entry, result)
 
 
+#: numbers this far from any plant quantity may overflow a core's arithmetic
+EXTREME_HIGH, EXTREME_LOW = 1e12, 1e-12
+
+
 def call(entry: CellFunction, values: tuple):
-    """Coerce, call the core, check the result.  Raises CellInputError."""
+    """Coerce, call the core, check the result.  Raises CellInputError.
+
+    A result that is not a finite number is an error: when an argument is of an
+    extreme magnitude (above 1e12 or below 1e-12 in size) the error names it;
+    otherwise it is a fault of the core (FloatingPointError, shown as an
+    internal error and failed by the test suite).
+    """
     coerced = coerce_args(entry, values)
-    return result_to_cells(entry, entry.resolve()(*coerced))
+    try:
+        return result_to_cells(entry, entry.resolve()(*coerced))
+    except (FloatingPointError, OverflowError, ZeroDivisionError):
+        for arg, v in zip(entry.args, coerced):
+            if type(v) is float and (abs(v) > EXTREME_HIGH or 0.0 < abs(v) < EXTREME_LOW):
+                raise CellInputError(f"{arg.name}: {v:.4g} is too extreme for {entry.name} "
+                                     "(the result overflows)") from None
+        raise

@@ -171,8 +171,14 @@ def dew_point_c(y_water: float, p_bar: float) -> float:
     """Water dew point [°C] of a gas with water mole fraction y_water [-] at p_bar [bar(a)].
 
     Frost point (over ice) when below 0.01 °C.  Enhancement factor neglected.
+    A gas too dry for the saturation equations is an error that names the
+    humidity (the water in a cell user's mixture comes from ``rh_ambient``).
     """
-    return t_sat_K(y_water * p_bar * 1e5) - 273.15
+    p_w = y_water * p_bar * 1e5
+    if 0.0 < p_w < _p_ice(T_LOW):
+        raise CellInputError(f"rh_ambient: the mixture is too dry for a dew point (water vapour "
+                             f"{fmt(p_w)} Pa, frost point below {fmt(T_LOW - 273.15)} °C)")
+    return t_sat_K(p_w) - 273.15
 
 
 def vapour_pressure(t_c: float, rh: float, name_t: str = "t_ambient",
