@@ -18,8 +18,11 @@ def main(path):
     for b in data["benchmarks"]:
         name = b["name"].split("[")[0].replace("test_", "")
         param = b.get("param") or ""
-        groups[b["group"] or name][name + (f"[{param}]" if param and b["group"] in ("import",) else "")] = \
-            b["stats"]["median"]
+        if "|" in param:  # bench_hx_core: "<group>|<case>"
+            name = param.split("|", 1)[1]
+        elif param and param != b["group"]:
+            name = f"{name}[{param}]"
+        groups[b["group"] or name][name] = b["stats"]["median"]
     print(f"Machine: {data['machine_info'].get('cpu', {}).get('brand_raw', '?')}, "
           f"Python {data['machine_info'].get('python_version')}; median times.\n")
     adapters = {g: v for g, v in groups.items() if {"excel", "core", "empty"} <= set(v)}
@@ -40,10 +43,10 @@ def main(path):
             continue
         base = min(v.values())
         print(f"**{g}**\n")
-        print("| case | median [ms] | ratio to fastest |")
+        print("| case | median [µs] | ratio to fastest |")
         print("|---|---|---|")
         for k, t in sorted(v.items(), key=lambda kv: kv[1]):
-            print(f"| {k} | {t * 1e3:.3f} | {t / base:.2f} |")
+            print(f"| {k} | {t * 1e6:.2f} | {t / base:.2f} |")
         print()
 
 
