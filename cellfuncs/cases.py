@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import csv
 import io
+import math
 import os
 import shutil
 import sys
@@ -89,17 +90,24 @@ class CaseRunner:
         return out
 
     def parse_row(self, row: dict, line: int) -> list:
+        """A CSV row -> input values: numbers where the text is one, else text.
+
+        Where the workbook's input cell holds a number now, the case must give a number.
+        """
         vals = []
         for target, numeric in zip(self.inputs, self.numeric_inputs):
             text = (row.get(target) or "").strip()
-            if numeric:
-                try:
-                    vals.append(float(text))
-                except ValueError:
+            try:
+                v = float(text)
+            except ValueError:
+                if numeric:
                     raise BookError(f"line {line}, column {target}: {text!r} is not a number "
                                     "(this input holds a number)") from None
-            else:
                 vals.append(text)
+                continue
+            if not math.isfinite(v):
+                raise BookError(f"line {line}, column {target}: {text!r} is not a finite number")
+            vals.append(v)
         return vals
 
     def run_case(self, values: list) -> list:
@@ -144,18 +152,23 @@ def _read_cases(path):
         raise BookError(f"{path}: no header row (one column per workbook input)")
     if any(not h or not h.strip() for h in header):
         raise BookError(f"{path}: a column has an empty header")
-    return [h.strip() for h in header], [{(k or "").strip(): v for k, v in r.items()} for r in rows]
+    header = [h.strip() for h in header]
+    dupes = sorted({h for h in header if header.count(h) > 1})
+    if dupes:
+        raise BookError(f"{path}: column {dupes[0]!r} appears more than once")
+    for i, r in enumerate(rows, start=2):
+        if None in r:
+            raise BookError(f"{path}: line {i} has more fields than the header")
+    return header, [{(k or "").strip(): v for k, v in r.items()} for r in rows]
 
 
 def run(ns) -> int:
     """Entry point of ``cellfuncs cases`` (argparse namespace)."""
-    from cellfuncs.cli import _same_file
+    from cellfuncs.cli import check_output_path
     from cellfuncs.errors import UsageError
 
     out = ns.output
-    for src in (ns.book, ns.cases_csv):
-        if _same_file(src, out):
-            raise UsageError(f"-o {out}: would write over an input file; choose another file")
+    check_output_path(out, ns.book, ns.cases_csv)
     if ns.workers < 1:
         raise UsageError(f"--workers {ns.workers}: must be 1 or more")
     outputs = [o.strip() for o in ns.outputs.split(",") if o.strip()] if ns.outputs else None
@@ -185,7 +198,8 @@ def run(ns) -> int:
         import multiprocessing as mp
 
         chunk = max(1, len(cases) // (ns.workers * 8))
-        with mp.get_context("fork").Pool(ns.workers, _init_worker,
+        # the platform's default start method (spawn on Windows): each worker loads the book itself
+        with mp.get_context().Pool(ns.workers, _init_worker,
                                          (ns.book, runner.inputs, runner.outputs)) as pool:
             for r in pool.imap(_work, cases, chunksize=chunk):
                 results.append(r)
@@ -209,15 +223,18 @@ def run(ns) -> int:
                 cells.append(repr(o) if isinstance(o, float) else o)
         w.writerow([raw.get(h, "") for h in runner.inputs] + cells)
     folder = os.path.dirname(os.path.abspath(out)) or "."
-    if not os.path.isdir(folder):
-        raise UsageError(f"-o {out}: folder {folder} does not exist")
-    fd, tmp = tempfile.mkstemp(prefix=".cellfuncs-", suffix=".csv", dir=folder)
-    with os.fdopen(fd, "w", encoding="utf-8", newline="") as fh:
-        fh.write(buf.getvalue())
     from cellfuncs.xlsx import _umask
 
-    os.chmod(tmp, 0o666 & ~_umask())
-    os.replace(tmp, out)
+    fd, tmp = tempfile.mkstemp(prefix=".cellfuncs-", suffix=".csv", dir=folder)
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8", newline="") as fh:
+            fh.write(buf.getvalue())
+        os.chmod(tmp, 0o666 & ~_umask())
+        os.replace(tmp, out)
+    except OSError as exc:
+        if os.path.exists(tmp):
+            os.unlink(tmp)
+        raise UsageError(f"-o {out}: cannot write ({exc.strerror or exc})") from None
     print(f"{len(cases)} cases, {len(runner.outputs)} outputs, {n_err} error cells; wrote {out}",
           file=sys.stderr)
     return 0

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import argparse
 import json
+import math
 import os
 import sys
 
@@ -23,9 +24,12 @@ def _parse_value(text: str):
     if t == "":
         raise UsageError("--set: empty value (write REF=VALUE with a number or text)")
     try:
-        return float(t)
+        v = float(t)
     except ValueError:
         return t
+    if not math.isfinite(v):
+        raise UsageError(f"--set: {t!r} is not a finite number")
+    return v
 
 
 def _parse_sets(items):
@@ -46,12 +50,18 @@ def _same_file(a: str, b: str) -> bool:
     return os.path.realpath(a) == os.path.realpath(b)
 
 
-def _check_out(book: str, out: str):
-    if _same_file(book, out):
-        raise UsageError(f"-o {out}: would write over the input workbook; choose another file")
+def check_output_path(out: str, *inputs: str):
+    """Refuse an output that is an input, a folder, or in a folder that does not exist."""
+    for src in inputs:
+        if _same_file(src, out):
+            raise UsageError(f"-o {out}: would write over an input file; choose another file")
+    if os.path.isdir(out):
+        raise UsageError(f"-o {out}: is a folder; give a file name")
     folder = os.path.dirname(os.path.abspath(out))
     if not os.path.isdir(folder):
         raise UsageError(f"-o {out}: folder {folder} does not exist")
+    if not os.access(folder, os.W_OK):
+        raise UsageError(f"-o {out}: cannot write in folder {folder}")
 
 
 def _json_value(v):
@@ -68,13 +78,15 @@ def cmd_recalc(ns) -> int:
 
     if not ns.book.lower().endswith((".xlsx", ".xlsm")) and os.path.isfile(ns.book):
         raise UsageError(f"{ns.book}: not an .xlsx workbook")
-    _check_out(ns.book, ns.output)
+    check_output_path(ns.output, ns.book)
     sets = _parse_sets(ns.set)
     try:
         res, pkg = headless.recalc(ns.book, sets)
         headless.write_with_cached_values(res, pkg, ns.output)
     except BookError as exc:
         raise UsageError(str(exc)) from None
+    except OSError as exc:
+        raise UsageError(f"-o {ns.output}: cannot write ({exc.strerror or exc})") from None
     for (sheet, ref), msg in res.messages.items():
         print(f"{sheet}!{ref}: {msg}", file=sys.stderr)
     if ns.json:
@@ -99,8 +111,13 @@ def cmd_demo(ns) -> int:
     from cellfuncs import demo
 
     out = os.path.abspath(ns.output)
-    os.makedirs(out, exist_ok=True)
-    summary = demo.build_all(out)
+    if os.path.exists(out) and not os.path.isdir(out):
+        raise UsageError(f"-o {ns.output}: is a file, not a folder")
+    try:
+        os.makedirs(out, exist_ok=True)
+        summary = demo.build_all(out)
+    except OSError as exc:
+        raise UsageError(f"-o {ns.output}: cannot write there ({exc.strerror or exc})") from None
     for line in summary:
         print(line)
     print(f"demo workbooks written to {out}")

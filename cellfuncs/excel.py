@@ -55,7 +55,11 @@ def _make(entry):
     fn.__qualname__ = entry.name
     # decorators: ret/arg first (innermost), func topmost
     for a in reversed(entry.args):
-        fn = xw.arg(a.name, doc=a.full_help()[:255])(fn)
+        if a.kind == "range":
+            # always rows of cells: xlwings would flatten a one-row or one-column range
+            fn = xw.arg(a.name, ndim=2, doc=a.full_help()[:255])(fn)
+        else:
+            fn = xw.arg(a.name, doc=a.full_help()[:255])(fn)
     fn = xw.func(category=entry.category)(fn)
     return fn
 

@@ -36,6 +36,8 @@ from cellfuncs.xlsx import BookError, ErrorText, Package, col_index, col_letters
 __all__ = ["register", "recalc", "Recalc", "BookError", "load_model", "cell_value"]
 
 _STATE: dict = {}
+#: the largest sheet (rows × columns of cells with content) the engine is given
+MAX_ENGINE_CELLS = 2_000_000
 #: messages of unexpected exceptions seen in registered functions (tests fail on these)
 INTERNAL_ERRORS: list = []
 
@@ -201,18 +203,21 @@ def _formula_cells(path: str):
             "\n")[0]) from None
     cells, names = [], {}
     for ws in wb.worksheets:
-        for row in ws.iter_rows():
-            for c in row:
-                v = c.value
-                if isinstance(v, ArrayFormula):
-                    r1, c1, r2, c2 = _range_bounds(v.ref)
-                    for r in range(r1, r2 + 1):
-                        for cc in range(c1, c2 + 1):
-                            cells.append((ws.title, f"{col_letters(cc)}{r}", v.ref))
-                elif isinstance(v, str) and v.startswith("=") and c.data_type == "f":
-                    cells.append((ws.title, c.coordinate, None))
+        # only the cells the file holds (iter_rows would build the whole used range)
+        for _, c in sorted(ws._cells.items()):
+            v = c.value
+            if isinstance(v, ArrayFormula):
+                r1, c1, r2, c2 = _range_bounds(v.ref)
+                for r in range(r1, r2 + 1):
+                    for cc in range(c1, c2 + 1):
+                        cells.append((ws.title, f"{col_letters(cc)}{r}", v.ref))
+            elif isinstance(v, str) and v.startswith("=") and c.data_type == "f":
+                cells.append((ws.title, c.coordinate, None))
     for name, dn in wb.defined_names.items():
-        dests = list(dn.destinations)
+        try:
+            dests = list(dn.destinations)
+        except Exception:  # noqa: BLE001 - a name that is a formula or constant, not a reference
+            continue
         if len(dests) == 1:
             names[name.upper()] = (dests[0][0], dests[0][1].replace("$", ""))
     return cells, names, wb.sheetnames
@@ -256,12 +261,12 @@ def resolve_target(target: str, names: dict, sheets: list):
         match = [s for s in sheets if s.upper() == sheet.upper()]
         if not match:
             return None
-        try:
-            split_ref(ref)
-        except BookError:
-            return None
+        split_ref(ref)  # a reference outside a worksheet is a BookError with its reason
         return match[0], ref.replace("$", "").upper()
-    return names.get(t.upper())
+    where = names.get(t.upper())
+    if where is not None and ":" in where[1]:
+        raise BookError(f"{target}: names the range {where[0]}!{where[1]}, not one cell")
+    return where
 
 
 def load_model(path: str, sets: dict | None = None):
@@ -275,10 +280,16 @@ def load_model(path: str, sets: dict | None = None):
     pkg = Package(path)
     cells, names, sheets = _formula_cells(path)
     resolved = {}
+    formula_at = {(c[0], c[1]) for c in cells}
     for target, value in (sets or {}).items():
-        where = resolve_target(target, names, sheets)
+        try:
+            where = resolve_target(target, names, sheets)
+        except BookError as exc:
+            raise BookError(f"--set {exc}") from None
         if where is None:
             raise BookError(f"--set {target}: no such cell or defined name in {os.path.basename(path)}")
+        if where in formula_at:
+            raise BookError(f"--set {target}: {where[0]}!{where[1]} holds a formula, not an input")
         resolved[where] = value
     if resolved:
         pkg.set_values(resolved)
@@ -287,6 +298,12 @@ def load_model(path: str, sets: dict | None = None):
     calc_path = os.path.join(tmpdir, "book.xlsx")
     out_parts = dict(pkg.parts)
     pkg.map_formulas(_calc_formula)
+    pkg.drop_empty_cells()
+    for sheet, (rows, cols) in pkg.used_extent().items():
+        if rows * cols > MAX_ENGINE_CELLS:
+            shutil.rmtree(tmpdir, ignore_errors=True)
+            raise BookError(f"{os.path.basename(path)}: sheet {sheet!r} spans {rows} rows × {cols} columns, "
+                            f"more than the {MAX_ENGINE_CELLS:,} cells the headless engine computes")
     pkg.save(calc_path)
     pkg.parts = out_parts  # the output keeps the original formulas
     import formulas

@@ -20,6 +20,7 @@ import posixpath
 import re
 import tempfile
 import zipfile
+import zlib
 from xml.sax.saxutils import escape
 
 __all__ = ["BookError", "Package", "col_index", "split_ref"]
@@ -51,12 +52,18 @@ def col_letters(n: int) -> str:
     return s
 
 
+MAX_ROW, MAX_COL = 1048576, 16384  # the size of a worksheet
+
+
 def split_ref(ref: str):
-    """``"B12"`` -> (12, 2)."""
+    """``"B12"`` -> (12, 2); a reference outside a worksheet is a BookError."""
     m = _REF_RE.match(ref.strip())
     if not m:
         raise BookError(f"not a cell reference: {ref!r}")
-    return int(m.group(2)), col_index(m.group(1))
+    row, col = int(m.group(2)), col_index(m.group(1))
+    if not (1 <= row <= MAX_ROW and 1 <= col <= MAX_COL):
+        raise BookError(f"{ref}: outside a worksheet (rows 1 to {MAX_ROW}, columns A to XFD)")
+    return row, col
 
 
 def _attrs(tag_text: str) -> dict:
@@ -96,7 +103,7 @@ class Package:
                 self.parts = {i.filename: zf.read(i.filename) for i in self.infos}
         except zipfile.BadZipFile:
             raise BookError(f"{path}: not an .xlsx workbook (not a zip file)") from None
-        except (OSError, EOFError, zipfile.LargeZipFile, RuntimeError, ValueError) as exc:
+        except (OSError, EOFError, zipfile.LargeZipFile, RuntimeError, ValueError, zlib.error) as exc:
             raise BookError(f"{path}: cannot read the workbook ({exc})") from None
         if "xl/workbook.xml" not in self.parts:
             raise BookError(f"{path}: not an .xlsx workbook (no xl/workbook.xml)")
@@ -198,6 +205,31 @@ class Package:
         wb = self.parts["xl/workbook.xml"].decode("utf-8")
         wb = re.sub(r'\sfullCalcOnLoad="[^"]*"', "", wb)
         self.parts["xl/workbook.xml"] = wb.encode("utf-8")
+
+    def drop_empty_cells(self):
+        """Remove cells with neither value nor formula (styled blanks) and the stated dimension.
+
+        Only for the engine's private copy: the engine walks every cell of the used range, and a
+        single formatted blank far away (a common leftover) would make that range enormous.
+        """
+        empty = re.compile(r'<c(?=[\s>/])(?:[^>"]|"[^"]*")*?(?:/>|>\s*</c>)', re.S)
+        for path in self._sheets.values():
+            xml = self.parts[path].decode("utf-8")
+            xml = re.sub(r"<dimension\b[^>]*/>", "", xml)
+            xml = empty.sub("", xml)
+            self.parts[path] = xml.encode("utf-8")
+
+    def used_extent(self) -> dict:
+        """Rows × columns spanned by the cells that are present, per sheet."""
+        out = {}
+        for name, path in self._sheets.items():
+            xml = self.parts[path].decode("utf-8")
+            rows, cols = 0, 0
+            for m in re.finditer(r'<c\b[^>]*?\br="\$?([A-Z]{1,3})\$?(\d+)"', xml):
+                rows = max(rows, int(m.group(2)))
+                cols = max(cols, col_index(m.group(1)))
+            out[name] = (rows, cols)
+        return out
 
     def map_formulas(self, fn):
         """Apply ``fn(text) -> text`` to every formula in every sheet."""

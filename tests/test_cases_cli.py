@@ -49,10 +49,29 @@ def test_cases_values_and_errors(book, tmp_path, workers):
     rows = list(csv.DictReader(open(out)))
     assert list(rows[0]) == ["t_hot_in", "t_cold_out", "flow", "out_double", "out_lmtd"]
     assert float(rows[0]["out_lmtd"]) == pytest.approx(ht.LMTD(100, 60, 30, 40.2), rel=1e-9)
-    assert float(rows[1]["out_lmtd"]) == pytest.approx(39.752511, rel=1e-6)  # Bergman Ex. 11.1
+    # parallel flow: ht.LMTD(100, 60, 30, 40.2, counterflow=False)
+    assert float(rows[1]["out_lmtd"]) == pytest.approx(ht.LMTD(100, 60, 30, 40.2, counterflow=False), rel=1e-9)
     assert float(rows[2]["out_double"]) == pytest.approx(2 * ht.LMTD(120, 60, 30, 50), rel=1e-9)
     assert rows[3]["out_lmtd"] == "#NUM!"        # 50 °C hot inlet is below the cold outlet: a cross
     assert "case 4, out_lmtd: #NUM!" in p.stderr
+
+
+def test_numbers_reach_an_input_cell_that_is_blank_now(tmp_path):
+    """A case may fill an input cell that is blank in the workbook: numbers stay numbers."""
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws.title = "S"
+    ws["B1"] = "=HX_LMTD(100,60,30,A1)"
+    wb.defined_names["out_lmtd"] = DefinedName("out_lmtd", attr_text="S!$B$1")
+    path = tmp_path / "blank.xlsx"
+    wb.save(path)
+    cases = tmp_path / "c.csv"
+    _write(cases, [["S!A1"], [40.2]])
+    out = tmp_path / "r.csv"
+    p = _run("cases", str(path), str(cases), "-o", str(out))
+    assert p.returncode == 0, p.stderr
+    row = next(csv.DictReader(open(out)))
+    assert float(row["out_lmtd"]) == pytest.approx(43.200409294, rel=1e-9)  # Bergman Ex. 11.1
 
 
 def test_cases_bad_input_exit_2(book, tmp_path):
@@ -61,10 +80,18 @@ def test_cases_bad_input_exit_2(book, tmp_path):
     _write(unknown, [["no_such_input"], [1]])
     text = tmp_path / "t.csv"
     _write(text, [["t_hot_in"], ["hot"]])
-    for csv_path in (unknown, text, tmp_path / "missing.csv"):
+    dup = tmp_path / "dup.csv"
+    _write(dup, [["t_hot_in", "t_hot_in"], [1, 2]])
+    extra = tmp_path / "extra.csv"
+    _write(extra, [["t_hot_in"], [100, 5]])
+    inf = tmp_path / "inf.csv"
+    _write(inf, [["t_hot_in"], ["inf"]])
+    for csv_path in (unknown, text, tmp_path / "missing.csv", dup, extra, inf):
         p = _run("cases", str(book), str(csv_path), "-o", str(out))
         assert p.returncode == 2, p.stderr
         assert len(p.stderr.strip().splitlines()) == 1
     p = _run("cases", str(book), str(unknown), "-o", str(unknown))
     assert p.returncode == 2
+    p = _run("cases", str(book), str(unknown), "-o", str(tmp_path))
+    assert p.returncode == 2 and "folder" in p.stderr
     assert not out.exists()

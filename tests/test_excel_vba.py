@@ -86,3 +86,5 @@ def test_category_and_help_survive(windows_excel_module):
             assert xa["doc"] == a.full_help()[:255]
             assert 0 < len(xa["doc"]) <= 255
             assert ("optional" in xa) == a.optional
+            # ranges arrive as rows of cells whatever their shape (a one-row range stays a row)
+            assert (xa["options"].get("ndim") == 2) == (a.kind == "range")

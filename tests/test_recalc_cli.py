@@ -73,8 +73,8 @@ def test_recalc_json_values_errors_and_safety(book, tmp_path):
     assert got["HX Calc!A2"] == pytest.approx(f12, rel=1e-9)               # ht.F_LMTD_Fakheri
     assert got["HX Calc!A3"] == pytest.approx(500 / (lmtd * f12), rel=1e-9)
     assert got["HX Calc!A4"] == pytest.approx(500e3 / (1200 * lmtd * f12), rel=1e-9)
-    eps = ht.effectiveness_from_NTU(2, 0.5, subtype="crossflow")
-    assert got["HX Calc!A5"] == pytest.approx(eps, rel=1e-3)  # ht's crossflow is the approximate form
+    eps = ht.effectiveness_from_NTU(2, 0.5, subtype="crossflow")  # ht: exact, both fluids unmixed
+    assert got["HX Calc!A5"] == pytest.approx(eps, rel=1e-9)
     assert got["HX Calc!A6"] == pytest.approx(2.0, rel=1e-9)  # round trip through our own NTU
     assert got["HX Calc!A7"] == "#NUM!"
     assert got["HX Calc!A8"] == "#NUM!"
@@ -84,7 +84,8 @@ def test_recalc_json_values_errors_and_safety(book, tmp_path):
     assert got["HX Calc!B1"] == pytest.approx(e * 25 * 115, rel=1e-9)
     assert got["HX Calc!C1"] == pytest.approx(130 - e * 115, rel=1e-9)
     assert got["HX Calc!D1"] == pytest.approx(15 + e * 25 * 115 / 35.7142857142857, rel=1e-9)
-    assert got["HX Calc!A10"] == pytest.approx(39.752511, rel=1e-6)   # Bergman Example 11.1, parallel
+    # Bergman Example 11.1 streams in parallel flow: ht.LMTD(100, 60, 30, 40.2, counterflow=False)
+    assert got["HX Calc!A10"] == pytest.approx(ht.LMTD(100, 60, 30, 40.2, counterflow=False), rel=1e-9)
     errors = [k for k, v in got.items() if isinstance(v, str) and v.startswith("#")]
     assert sorted(errors) == ["HX Calc!A7", "HX Calc!A8"]
     assert "HX Calc!A7: #NUM! c_ratio" in p.stderr
@@ -155,3 +156,45 @@ def test_external_links_become_errors(tmp_path):
     got = json.loads(p.stdout)
     assert got["Sheet!A1"] == "#REF!"
     assert got["Sheet!A2"] == 4
+
+
+def test_more_unusable_input_exits_2(book, tmp_path):
+    """Hostile inputs found in review: each is one line and exit 2, and nothing is written."""
+    out = tmp_path / "o.xlsx"
+    folder = tmp_path / "a_folder"
+    folder.mkdir()
+    flipped = bytearray(book.read_bytes())
+    with zipfile.ZipFile(book) as zf:
+        info = zf.getinfo("xl/worksheets/sheet2.xml")
+    flipped[info.header_offset + 60] ^= 0xFF  # damage the compressed sheet data
+    damaged = tmp_path / "damaged.xlsx"
+    damaged.write_bytes(bytes(flipped))
+    cases = {
+        "row 0": [str(book), "-o", str(out), "--set", "Inputs!A0=3"],
+        "past column XFD": [str(book), "-o", str(out), "--set", "Inputs!ZZZ1=3"],
+        "not finite": [str(book), "-o", str(out), "--set", "duty=nan"],
+        "infinite": [str(book), "-o", str(out), "--set", "duty=1e999"],
+        "a formula cell": [str(book), "-o", str(out), "--set", "HX Calc!A1=5"],
+        "output is a folder": [str(book), "-o", str(folder)],
+        "damaged zip data": [str(damaged), "-o", str(out)],
+    }
+    for why, args in cases.items():
+        p = _run("recalc", *args)
+        assert p.returncode == 2, (why, p.stderr)
+        assert len(p.stderr.strip().splitlines()) == 1, (why, p.stderr)
+    assert not out.exists()
+
+
+def test_a_far_away_formatted_blank_does_not_blow_up(tmp_path):
+    """A styled empty cell at XFD1048576 (a common leftover) must not make the engine walk 17e9 cells."""
+    from openpyxl.styles import Font
+
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws["A1"] = "=HX_LMTD(100,60,30,40.2)"
+    ws["XFD1048576"].font = Font(bold=True)
+    path = tmp_path / "far.xlsx"
+    wb.save(path)
+    p = _run("recalc", str(path), "-o", str(tmp_path / "o.xlsx"), "--json")
+    assert p.returncode == 0, p.stderr
+    assert json.loads(p.stdout)["Sheet!A1"] == pytest.approx(43.200409294, rel=1e-9)  # Bergman Ex. 11.1

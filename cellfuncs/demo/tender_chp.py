@@ -170,6 +170,10 @@ def build(path: str) -> None:
            name="ex_w_out", fmt="0.0")
     h.calc("Exhaust exchanger LMTD (counterflow)", '=HX_LMTD(t_exh,t_stack,ex_w_in,ex_w_out,"counter")', "K",
            name="ex_lmtd", fmt="0.0")
+    h.calc("F factor of the chosen arrangement", '=IF(exh_arr="counter",1,HX_F(t_exh,t_stack,ex_w_in,ex_w_out,'
+           'exh_arr))', "-", name="ex_f", fmt="0.000")
+    h.calc("Required UA (duty / (F · LMTD))", "=HX_UA(q_exh,t_exh,t_stack,ex_w_in,ex_w_out,exh_arr)", "kW/K",
+           name="ex_ua", fmt="0.00")
     h.calc("Exhaust exchanger area (gas side)", "=HX_AREA(q_exh,u_exh,t_exh,t_stack,ex_w_in,ex_w_out,exh_arr)",
            "m²", name="out_area_exh", result=True, fmt="0.0")
 
