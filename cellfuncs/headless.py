@@ -305,17 +305,34 @@ def load_model(path: str, sets: dict | None = None):
             raise BookError(f"{os.path.basename(path)}: sheet {sheet!r} spans {rows} rows × {cols} columns, "
                             f"more than the {MAX_ENGINE_CELLS:,} cells the headless engine computes")
     pkg.save(calc_path)
-    pkg.parts = out_parts  # the output keeps the original formulas
     import formulas
 
     try:
-        with _quiet():
-            model = formulas.ExcelModel().loads(calc_path).finish(complete=False)
+        try:
+            with _quiet():
+                model = formulas.ExcelModel().loads(calc_path).finish(complete=False)
+        except Exception:  # noqa: BLE001 - most often one formula the engine cannot parse
+            # second try: formulas the engine cannot parse become #NAME? (only those cells fail)
+            parser = formulas.Parser()
+
+            def parseable(text):
+                try:
+                    parser.ast("=" + text if not text.startswith("=") else text)
+                    return text
+                except Exception:  # noqa: BLE001
+                    return "#NAME?"
+
+            pkg.map_formulas(parseable)
+            pkg.save(calc_path)
+            with _quiet():
+                model = formulas.ExcelModel().loads(calc_path).finish(complete=False)
     except BookError:
         raise
     except Exception as exc:  # noqa: BLE001
         shutil.rmtree(tmpdir, ignore_errors=True)
         raise BookError(f"{path}: the formula engine cannot load it ({type(exc).__name__})") from None
+    finally:
+        pkg.parts = out_parts  # the output keeps the original formulas
     info = {"cells": cells, "names": names, "sheets": sheets, "package": pkg, "tmpdir": tmpdir,
             "calc_name": "BOOK.XLSX"}
     return model, info

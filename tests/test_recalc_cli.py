@@ -198,3 +198,20 @@ def test_a_far_away_formatted_blank_does_not_blow_up(tmp_path):
     p = _run("recalc", str(path), "-o", str(tmp_path / "o.xlsx"), "--json")
     assert p.returncode == 0, p.stderr
     assert json.loads(p.stdout)["Sheet!A1"] == pytest.approx(43.200409294, rel=1e-9)  # Bergman Ex. 11.1
+
+
+def test_one_unreadable_formula_fails_alone(tmp_path):
+    """A formula the engine cannot parse (a structured table reference) fails as #NAME?, the rest computes."""
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws["A1"] = "=Table1[Col]"
+    ws["A2"] = "=HX_LMTD(100,60,30,40.2)"
+    path = tmp_path / "table.xlsx"
+    wb.save(path)
+    out = tmp_path / "o.xlsx"
+    p = _run("recalc", str(path), "-o", str(out), "--json")
+    assert p.returncode == 0, p.stderr
+    got = json.loads(p.stdout)
+    assert got["Sheet!A1"] == "#NAME?"
+    assert got["Sheet!A2"] == pytest.approx(43.200409294, rel=1e-9)  # Bergman Ex. 11.1
+    assert openpyxl.load_workbook(out)["Sheet"]["A1"].value == "=Table1[Col]"
