@@ -1,10 +1,11 @@
 """Exhaust: composition, molar mass, enthalpy drop, dew point, flow, O2 correction.
 
-Outside sources: issue 5's lambda 1.8 methane case (dry air O2 20.95 %, N2
-78.08 %, Ar 0.93 %, CO2 0.04 %: the air named ``ISSUE_AIR`` here; rows with
-air "gas" use the gas family's ``DRY_AIR``); CoolProp 8 per-species ideal-gas
-enthalpy (``AbstractState.hmolar_idealgas``) for EXH_HEAT; the dew point
-(IAPWS-IF97 saturation of the charge-air family) against CoolProp
+Outside sources: a lambda 1.8 methane case worked by hand (complete-combustion
+stoichiometry with dry air O2 20.95 %, N2 78.08 %, Ar 0.93 %, CO2 0.04 %: the
+air named ``ROUNDED_AIR`` here; rows with air "gas" use the gas family's
+``DRY_AIR``); CoolProp 8 per-species ideal-gas enthalpy
+(``AbstractState.hmolar_idealgas``) for the enthalpy drop and EXH_HEAT; the dew
+point (IAPWS-IF97 saturation of the charge-air family) against CoolProp
 ``PropsSI('T', 'P', p_w, 'Q', 0, 'Water')``.  Vectors in tests/vectors/exhaust.csv.
 """
 
@@ -23,15 +24,15 @@ from cellfuncs.gas import combustion, idealgas
 from cellfuncs.gas.composition import parse_composition
 from cellfuncs.recovery import exhaust as ex
 
-#: the dry air of issue 5's check values
-ISSUE_AIR = {"O2": 0.2095, "N2": 0.7808, "Ar": 0.0093, "CO2": 0.0004}
+#: four-figure dry air (O2 20.95 %, N2 78.08 %, Ar 0.93 %, CO2 0.04 %) of the "rounded" vectors
+ROUNDED_AIR = {"O2": 0.2095, "N2": 0.7808, "Ar": 0.0093, "CO2": 0.0004}
 METHANE = {"methane": 100.0}
 COOLPROP = {"CO2": "CarbonDioxide", "H2O": "Water", "O2": "Oxygen", "N2": "Nitrogen",
             "Ar": "Argon", "SO2": "SulfurDioxide"}
 
 
 def _air(row):
-    return ISSUE_AIR if row["air"] == "issue" else None
+    return ROUNDED_AIR if row["air"] == "rounded" else None
 
 
 @pytest.mark.parametrize("row", params("exhaust", "EXH_COMPOSITION"))
