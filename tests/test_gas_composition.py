@@ -1,6 +1,7 @@
 """Composition parsing: range forms, mol% vs fractions, normalisation, bad input.
 
-Rules from issue 3 (composition input) and ISO 6976:2016 clause 5 (mole fractions normalised to 1).
+Rules: the project's composition-input rules (docs/methods.md) and ISO 6976:2016 clause 5
+(mole fractions normalised to 1).
 """
 
 import math
