@@ -231,3 +231,25 @@ def test_leaner_is_drier_and_has_more_o2(lam1, d):
 def test_o2_correct_round_trip(c, meas, ref):
     back = ex.o2_correct(ex.o2_correct(c, meas, ref), ref, meas)
     assert back == pytest.approx(c, rel=1e-12, abs=1e-12)
+
+
+def test_exh_flow_kind_takes_the_gas_families_words():
+    """EXH_FLOW's kind accepts the same words as the GAS_ kind arguments (one shared mapping)."""
+    from cellfuncs import adapt
+    from cellfuncs.catalogue import by_name
+    from cellfuncs.catalogue.gas import KIND_ALIASES
+
+    exh = by_name("EXH_FLOW")
+    kind = next(a for a in exh.args if a.name == "kind")
+    gas_kind = next(a for a in by_name("GAS_CV").args if a.name == "kind")
+    assert kind.aliases == gas_kind.aliases == KIND_ALIASES
+    assert set(kind.options) == set(gas_kind.options)
+    comps, fr = [["methane"], ["ethane"]], [[95.0], [5.0]]
+    gross = ex.exhaust_flow(1000.0, 1.8, {"CH4": 95.0, "C2H6": 5.0}, "gross", 25.0, 0.3, 1.0)
+    net = ex.exhaust_flow(1000.0, 1.8, {"CH4": 95.0, "C2H6": 5.0}, "net", 25.0, 0.3, 1.0)
+    assert gross < net  # the same power on the larger (gross) value burns less gas
+    for word, want in (("HHV", gross), ("superior", gross), ("Higher", gross), ("gross", gross),
+                       ("LHV", net), ("Inferior", net), ("lower", net), ("net", net), (None, net)):
+        assert adapt.call(exh, (1000.0, 1.8, comps, fr, word)) == pytest.approx(want, rel=1e-12)
+    with pytest.raises(CellTypeError, match="^kind:"):
+        adapt.call(exh, (1000.0, 1.8, comps, fr, "wet"))
