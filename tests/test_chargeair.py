@@ -115,7 +115,7 @@ def test_saturation_round_trip(T):
 # --- mixture ---------------------------------------------------------------------------
 
 def test_methane_lambda_1_air_fuel_ratio_equals_gas_air_requirement():
-    """Dry air / fuel at lambda 1 = GAS_AIR_REQUIREMENT(mass) of the gas family (issue 4 check)."""
+    """Dry air / fuel at lambda 1 = GAS_AIR_REQUIREMENT(mass) of the gas family (consistency check)."""
     ratio = {}
     for key in ("CH4", "NG1"):
         comps, fracs = GASES[key]
@@ -227,7 +227,7 @@ def test_condensing_gas_mixture_vs_coolprop_balance():
 @given(p=st.floats(1.0, 5.0), t_amb=st.floats(0.0, 45.0), rh=st.floats(0.05, 1.0),
        lam=st.floats(1.2, 2.5), dt=st.floats(0.05, 20.0))
 def test_condensate_zero_above_and_positive_below_dew_point(p, t_amb, rh, lam, dt):
-    """CAC_CONDENSATE = 0 above CAC_DEWPOINT and > 0 below it (issue 4 property)."""
+    """CAC_CONDENSATE = 0 above CAC_DEWPOINT and > 0 below it (property)."""
     comps, fracs = NG1
     args = (p, lam, comps, fracs, t_amb, rh, 1.0)
     td = _call("CAC_DEWPOINT", *args)
@@ -293,7 +293,7 @@ def test_bad_input_names_the_argument():
 
 
 def test_lean_and_rich_lambda_allowed():
-    """lambda below 1 is allowed for the mixture (issue 4); <= 0 is not."""
+    """lambda below 1 is allowed for the mixture (rich mixtures); <= 0 is not."""
     comps, fracs = CH4
     rich = _call("CAC_MIXTURE_FLOW", 1000.0, 0.9, comps, fracs, "net", 25.0, 0.3, 1.0, "dry_air")
     lean = _call("CAC_MIXTURE_FLOW", 1000.0, 1.8, comps, fracs, "net", 25.0, 0.3, 1.0, "dry_air")

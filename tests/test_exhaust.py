@@ -1,10 +1,11 @@
 """Exhaust: composition, molar mass, enthalpy drop, dew point, flow, O2 correction.
 
-Outside sources: issue 5's lambda 1.8 methane case (dry air O2 20.95 %, N2
-78.08 %, Ar 0.93 %, CO2 0.04 %: the air named ``ISSUE_AIR`` here; rows with
-air "gas" use the gas family's ``DRY_AIR``); CoolProp 8 per-species ideal-gas
-enthalpy (``AbstractState.hmolar_idealgas``) for EXH_HEAT; the dew point
-(IAPWS-IF97 saturation of the charge-air family) against CoolProp
+Outside sources: a lambda 1.8 methane case worked by hand (complete-combustion
+stoichiometry with dry air O2 20.95 %, N2 78.08 %, Ar 0.93 %, CO2 0.04 %: the
+air named ``ROUNDED_AIR`` here; rows with air "gas" use the gas family's
+``DRY_AIR``); CoolProp 8 per-species ideal-gas enthalpy
+(``AbstractState.hmolar_idealgas``) for the enthalpy drop and EXH_HEAT; the dew
+point (IAPWS-IF97 saturation of the charge-air family) against CoolProp
 ``PropsSI('T', 'P', p_w, 'Q', 0, 'Water')``.  Vectors in tests/vectors/exhaust.csv.
 """
 
@@ -23,15 +24,15 @@ from cellfuncs.gas import combustion, idealgas
 from cellfuncs.gas.composition import parse_composition
 from cellfuncs.recovery import exhaust as ex
 
-#: the dry air of issue 5's check values
-ISSUE_AIR = {"O2": 0.2095, "N2": 0.7808, "Ar": 0.0093, "CO2": 0.0004}
+#: four-figure dry air (O2 20.95 %, N2 78.08 %, Ar 0.93 %, CO2 0.04 %) of the "rounded" vectors
+ROUNDED_AIR = {"O2": 0.2095, "N2": 0.7808, "Ar": 0.0093, "CO2": 0.0004}
 METHANE = {"methane": 100.0}
 COOLPROP = {"CO2": "CarbonDioxide", "H2O": "Water", "O2": "Oxygen", "N2": "Nitrogen",
             "Ar": "Argon", "SO2": "SulfurDioxide"}
 
 
 def _air(row):
-    return ISSUE_AIR if row["air"] == "issue" else None
+    return ROUNDED_AIR if row["air"] == "rounded" else None
 
 
 @pytest.mark.parametrize("row", params("exhaust", "EXH_COMPOSITION"))
@@ -230,3 +231,25 @@ def test_leaner_is_drier_and_has_more_o2(lam1, d):
 def test_o2_correct_round_trip(c, meas, ref):
     back = ex.o2_correct(ex.o2_correct(c, meas, ref), ref, meas)
     assert back == pytest.approx(c, rel=1e-12, abs=1e-12)
+
+
+def test_exh_flow_kind_takes_the_gas_families_words():
+    """EXH_FLOW's kind accepts the same words as the GAS_ kind arguments (one shared mapping)."""
+    from cellfuncs import adapt
+    from cellfuncs.catalogue import by_name
+    from cellfuncs.catalogue.gas import KIND_ALIASES
+
+    exh = by_name("EXH_FLOW")
+    kind = next(a for a in exh.args if a.name == "kind")
+    gas_kind = next(a for a in by_name("GAS_CV").args if a.name == "kind")
+    assert kind.aliases == gas_kind.aliases == KIND_ALIASES
+    assert set(kind.options) == set(gas_kind.options)
+    comps, fr = [["methane"], ["ethane"]], [[95.0], [5.0]]
+    gross = ex.exhaust_flow(1000.0, 1.8, {"CH4": 95.0, "C2H6": 5.0}, "gross", 25.0, 0.3, 1.0)
+    net = ex.exhaust_flow(1000.0, 1.8, {"CH4": 95.0, "C2H6": 5.0}, "net", 25.0, 0.3, 1.0)
+    assert gross < net  # the same power on the larger (gross) value burns less gas
+    for word, want in (("HHV", gross), ("superior", gross), ("Higher", gross), ("gross", gross),
+                       ("LHV", net), ("Inferior", net), ("lower", net), ("net", net), (None, net)):
+        assert adapt.call(exh, (1000.0, 1.8, comps, fr, word)) == pytest.approx(want, rel=1e-12)
+    with pytest.raises(CellTypeError, match="^kind:"):
+        adapt.call(exh, (1000.0, 1.8, comps, fr, "wet"))

@@ -1,6 +1,6 @@
 """Combustion core, air requirement, CO2 factor, fuel flow.
 
-Vectors: tests/vectors/gas_combustion.csv (stoichiometric arithmetic, issue 3's methane checks
+Vectors: tests/vectors/gas_combustion.csv (stoichiometric arithmetic, methane checks
 derived from the ISO 6976:2016 component tables, common-practice figures).
 """
 
@@ -76,9 +76,12 @@ def test_atom_and_mass_balance(lam, water, amounts):
 
 
 def test_products_of_ammonia_and_h2s():
+    """Source of every value: arithmetic (stoichiometry of complete combustion)."""
     p = cb.products({"NH3": 0.5, "H2S": 0.5})
+    # arithmetic (stoichiometry): 2 NH3 -> N2 + 3 H2O, H2S -> SO2 + H2O, per 0.5 mol each
     assert p["N2"] == pytest.approx(0.25) and p["SO2"] == pytest.approx(0.5)
     assert p["H2O"] == pytest.approx(0.5 * 1.5 + 0.5 * 1.0)
+    # arithmetic (stoichiometry): NH3 + 3/4 O2 -> 1/2 N2 + 3/2 H2O; CO + 1/2 O2 -> CO2
     assert cb.o2_demand({"NH3": 1}) == pytest.approx(0.75)
     assert cb.o2_demand({"CO": 1}) == pytest.approx(0.5)
 

@@ -1,6 +1,7 @@
 """Composition parsing: range forms, mol% vs fractions, normalisation, bad input.
 
-Rules from issue 3 (composition input) and ISO 6976:2016 clause 5 (mole fractions normalised to 1).
+Rules: the project's composition-input rules (docs/methods.md) and ISO 6976:2016 clause 5
+(mole fractions normalised to 1).
 """
 
 import math
@@ -63,7 +64,7 @@ def test_blank_rows_and_blank_amounts_skipped():
 def test_heading_row_skipped():
     rng = (("Component", "mol%"), ("CH4", 95.0), ("N2", 5.0))
     assert parse_composition(rng).ids == ("CH4", "N2")
-    with pytest.raises(CellInputError, match='^components: row 2 amount "mol%" is not a number'):
+    with pytest.raises(CellTypeError, match="^components: row 2 holds the text 'mol%', not a number$"):
         parse_composition((("CH4", 95.0), ("Component", "mol%"), ("N2", 5.0)))
 
 
@@ -137,7 +138,7 @@ def test_unknown_name_without_close_match():
     ((("CH4", 110.0), ("N2", -10.0)), r"^components: row 2 \(N2\) amount -10 is negative"),
     ((("CH4", None), (None, None)), "^components: the composition is empty"),
     (((None, 5.0), ("CH4", 95.0)), "^components: row 1 has amount 5 but no component name"),
-    ((("CH4", "lots"),), '^components: row 1 amount "lots" is not a number'),
+    ((("CH4", "lots"),), "^components: row 1 holds the text 'lots', not a number$"),
     (((3.0, 100.0),), "^components: row 1 holds 3, a component name is needed"),
     ((("CH4",),), "^fractions: omitted, so components must be a two-column range"),
 ])
@@ -161,6 +162,45 @@ def test_types_of_errors():
         parse_composition((("CH4", True),))
     with pytest.raises(CellInputError):
         parse_composition((("CH4", float("nan")),))
+
+
+@pytest.mark.parametrize("text", ["90", "95,5 %", "1,000", " 5 ", "1e-3", "10%", "0.5"])
+def test_numeric_text_amount_is_refused(text):
+    """Numeric text is never read as a number (project rule for cell input): "1,000" could be
+    one or a thousand.  CellTypeError (#VALUE!) naming the argument and the row."""
+    with pytest.raises(CellTypeError, match=(
+            f"^fractions: row 2 holds the text '{text.strip()}', not a number "
+            r"\(enter it as a number\)$")):
+        parse_composition((("CH4",), ("N2",)), ((95.0,), (text,)))
+    with pytest.raises(CellTypeError, match=f"^components: row 1 holds the text '{text.strip()}'"):
+        parse_composition((("CH4", text), ("N2", 5.0)))
+    with pytest.raises(CellTypeError, match="^components: column 2 holds the text"):
+        parse_composition((("CH4", "N2", "CO2"), (90.0, text, 5.0)))
+    with pytest.raises(CellTypeError, match="^fractions: row 1 holds the text"):
+        parse_composition({"CH4": text})
+
+
+@settings(max_examples=200, deadline=None)
+@given(st.floats(0.0, 1e6, allow_nan=False), st.sampled_from(["{:g}", "{:.3f}", "{:,.2f}", "{:g} %"]),
+       st.booleans())
+def test_any_text_amount_is_a_type_error(value, form, comma):
+    """Whatever number a text holds, it is refused with the row named, never read."""
+    text = form.format(value)
+    if comma:
+        text = text.replace(".", ",")
+    with pytest.raises(CellTypeError, match=r"^fractions: row 1 holds the text .*\(enter it as a number\)$"):
+        parse_composition((("CH4",), ("N2",)), ((text,), (5.0,)))
+
+
+def test_same_amounts_as_numbers_are_accepted():
+    """The numbers the refused texts stand for parse as usual (mol%, sum 100)."""
+    c = parse_composition((("CH4",), ("N2",)), ((95.5,), (4.5,)))
+    assert c.unit == "mol%" and c.get("CH4") == pytest.approx(0.955, rel=1e-15)
+
+
+def test_text_uncertainty_is_refused():
+    with pytest.raises(CellTypeError, match="^u_fractions: row 2 holds the text '0,1', not a number"):
+        paired_amounts((("CH4",), ("N2",)), ((0.1,), ("0,1",)))
 
 
 def test_paired_amounts():

@@ -51,7 +51,7 @@ def test_hc25_vs_chemicals(cid):
     """Hc(25 °C) vs chemicals.combustion.combustion_data(formula, Hf=chemicals.reaction.Hfg(CAS)).
 
     The tabulated formation enthalpy must be passed: without it chemicals falls back to an
-    estimate (issue 3).  Tolerance 0.02 % (issue 3).
+    estimate.  Tolerance 0.02 % (the project's acceptance criterion).
     """
     from chemicals.combustion import combustion_data
     from chemicals.identifiers import CAS_from_any
@@ -77,7 +77,7 @@ def test_molar_mass_vs_chemicals(cid):
 @pytest.mark.parametrize("t", [15, 20, 25])
 def test_water_enthalpy_of_vaporisation_vs_iapws95(t):
     """L°(t) vs CoolProp IAPWS-95: ideal-gas enthalpy (p -> 0) minus liquid at 1.01325 bar,
-    PropsSI("Hmolar", "T", T, "P", p, "Water"); within 0.001 kJ/mol (issue 3).  0 °C is below
+    PropsSI("Hmolar", "T", T, "P", p, "Water"); within 0.001 kJ/mol (acceptance criterion).  0 °C is below
     the triple-point temperature, where CoolProp refuses the low-pressure state."""
     from CoolProp.CoolProp import PropsSI
 
@@ -88,7 +88,7 @@ def test_water_enthalpy_of_vaporisation_vs_iapws95(t):
 
 
 def test_methane_gross_vs_chemicals_and_coolprop():
-    """Methane gross 15/15 [MJ/m³] from chemicals + CoolProp, within 0.01 % (issue 3).
+    """Methane gross 15/15 [MJ/m³] from chemicals + CoolProp, within 0.01 % (acceptance criterion).
 
     Hc(25 °C) = -chemicals.combustion.combustion_data("CH4", Hf=Hfg("74-82-8")).HHV, moved to
     15 °C with Kirchhoff's law: ideal-gas Cp of CH4, O2, CO2 by
@@ -253,13 +253,17 @@ def test_kind_aliases():
                                 lambda c: density(c), lambda c: relative_density(c),
                                 lambda c: wobbe_index(c)])
 def test_z_out_of_scope_refused(fn):
-    """Z <= 0.9 is outside ISO 6976:2016: n-octane has Z(15 °C) = 1 - 0.4346² = 0.811."""
+    """Z <= 0.9 is outside ISO 6976:2016: n-octane has Z(15 °C) = 1 - 0.4346² = 0.811.
+
+    Source: ISO 6976:2016 component table (n-octane row, summation factor s(15 °C) 0.4346).
+    """
     with pytest.raises(CellInputError, match="^components: compression factor Z = 0.81"):
         fn({"nC8H18": 1})
 
 
 def test_z_out_of_scope_mass_basis_still_given():
     """Mass and molar values need no Z and stay available."""
+    # ISO 6976:2016 component table (n-octane row): Hc(25 °C) = 5511.80 kJ/mol
     assert calorific_value({"nC8H18": 1}, "gross", "molar", "25/15") == pytest.approx(5511.80)
 
 

@@ -414,7 +414,7 @@ def test_cross_needs_too_much_ntu():
 
 
 def test_infeasible_f_message():
-    """Issue 2: 'a 1-2 exchanger cannot reach P = 0.60 at R = 1.50; use more shells'."""
+    """Required message form: 'a 1-2 exchanger cannot reach P = 0.60 at R = 1.50; use more shells'."""
     msg = _raises(correction_factor, 100.0, 10.0, 0.0, 60.0, "1-2",
                   names=["t_hot_out", "t_cold_out"])
     assert "a 1-2 exchanger cannot reach P = 0.60 at R = 1.50" in msg
@@ -473,7 +473,7 @@ _any = st.one_of(st.floats(allow_nan=False), st.just(0.0), st.just(-0.0),
 @given(data=st.data())
 def test_core_never_crashes(data):
     """Every HX core: random numbers (0, negatives, huge) give a finite result
-    or a one-line CellInputError naming one of its arguments (issue 2 §8, HX part)."""
+    or a one-line CellInputError naming one of its arguments (the project's error rule)."""
     name = data.draw(st.sampled_from(
         ["HX_LMTD", "HX_F", "HX_UA", "HX_AREA", "HX_EFFECTIVENESS", "HX_NTU", "HX_RATE"]))
     entry = by_name(name)

@@ -1,6 +1,6 @@
 """Knock family: the screening model's identities (tests/vectors/knock.csv) and properties.
 
-Source of every identity: the model of issue 4 (Livengood & Wu 1955 integral with an
+Source of every identity: the screening model (Livengood & Wu 1955 integral with an
 Arrhenius ignition delay held at the declared reference point); they hold to 1e-9.
 """
 
@@ -90,7 +90,8 @@ def test_compression_ratio_ref_defaults_to_compression_ratio():
     assert a == b
 
 
-def test_defaults_are_the_issue_values():
+def test_defaults_are_the_documented_values():
+    """Defaults as the module text states them (B, a from a GRI-Mech 3.0 fit; k after Bade Shrestha & Rodrigues 2008; n common practice)."""
     e = by_name("KNOCK_MARGIN")
     d = {a.name: a.default for a in e.args}
     assert (d["k_per_mn"], d["n_poly"], d["activation_k"], d["pressure_exp"], d["output"]) == (

@@ -1,5 +1,6 @@
 """Catalogue entries of the chargeair family (mixture flow, compressor, charge-air cooler)."""
 
+from cellfuncs.catalogue.gas import KIND_ALIASES
 from cellfuncs.catalogue.spec import Arg, CellFunction
 
 CATEGORY = "cellfuncs · charge air"
@@ -72,9 +73,7 @@ ENTRIES = [
             _fractions(),
             Arg("kind", "Calorific value kind of fuel_power_kw, at 25 °C combustion "
                 "(ISO 6976:2016): net (LHV) or gross (HHV)", kind="option", default="net",
-                options=("net", "gross"),
-                aliases={"lhv": "net", "inferior": "net", "lower": "net", "hhv": "gross",
-                         "superior": "gross", "higher": "gross"}),
+                options=("net", "gross"), aliases=KIND_ALIASES),
             _t_ambient(True),
             _rh_ambient(True),
             _P_AMBIENT,

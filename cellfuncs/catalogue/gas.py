@@ -22,14 +22,15 @@ _FRACTIONS_REQ = Arg(
     "near 1); normalised, a sum more than 2 % off is an error",
     kind="range",
 )
-_KIND_ALIASES = {"hhv": "gross", "superior": "gross", "higher": "gross",
-                 "lhv": "net", "inferior": "net", "lower": "net"}
+#: words accepted for a calorific value kind; other families' "kind" arguments reuse this mapping
+KIND_ALIASES = {"hhv": "gross", "superior": "gross", "higher": "gross",
+                "lhv": "net", "inferior": "net", "lower": "net"}
 
 
 def _kind(default: str) -> Arg:
     return Arg("kind", "Calorific value kind, gross (HHV, superior: water formed condensed) or "
                "net (LHV, inferior: water formed as vapour)", kind="option",
-               default=default, options=("gross", "net"), aliases=_KIND_ALIASES)
+               default=default, options=("gross", "net"), aliases=KIND_ALIASES)
 
 
 def _ref(default: str) -> Arg:

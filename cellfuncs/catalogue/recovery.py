@@ -5,6 +5,7 @@ All results are estimates for tendering; engine data come from the engine's
 declared datasheet; final design follows local codes and licensed engineers.
 """
 
+from cellfuncs.catalogue.gas import KIND_ALIASES
 from cellfuncs.catalogue.spec import REQUIRED, Arg, CellFunction
 
 CAT_HR = "cellfuncs · heat recovery"
@@ -278,9 +279,9 @@ EXHAUST = [
         args=(Arg("fuel_power_kw", "Fuel power input " + _DATASHEET + ", on the kind of calorific "
                   "value given (at 25 °C combustion reference)", "kW"),
               _LAMBDA, _COMPONENTS, _FRACTIONS,
-              Arg("kind", "Calorific value the fuel power refers to, net (LHV) or gross (HHV)",
-                  kind="option", default="net", options=("gross", "net"),
-                  aliases={"lhv": "net", "hhv": "gross", "inferior": "net", "superior": "gross"}),
+              Arg("kind", "Calorific value the fuel power refers to, net (LHV, inferior) or "
+                  "gross (HHV, superior)", kind="option", default="net", options=("gross", "net"),
+                  aliases=KIND_ALIASES),
               *_ambient()),
         returns="wet exhaust mass flow [kg/h]",
     ),

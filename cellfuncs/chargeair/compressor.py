@@ -78,6 +78,27 @@ def t_out(t_in, p_in_bar, p_out_bar, eta_is, lambda_=None, comp=None,
     CellInputError
         p_out below p_in, η outside (0, 1], t_in below the mixture's dew point
         at p_in (the inlet would carry liquid water).
+
+    Notes
+    -----
+    Isentropic outlet from Σ y_i s°_i(T_2s) − Σ y_i s°_i(T_1) = R ln(p_2/p_1),
+    then h_2 = h_1 + (h_2s − h_1)/η_is and T_2 from h_2 (ideal-gas mixture of
+    fixed composition, NASA-7 heat capacities).  Validity (checked, else
+    CellInputError): t_in -50 to 300 °C, p_in_bar 0.3 to 50 bar(a), pressure
+    ratio 1 to 10, outlet below 1000 °C, t_ambient -50 to 60 °C, rh_ambient
+    0 to 1, λ in (0, 20].  For dry air within 0.35 K of a real-fluid air model
+    (Lemmon et al. 2000) for pressure ratios 1.5-5 from 0 to 50 °C.
+
+    References
+    ----------
+    .. [1] Dixon, S.L., Hall, C.A. (2014), Fluid Mechanics and Thermodynamics of
+       Turbomachinery, 7th ed., ch. 2 (isentropic efficiency of a compressor on
+       enthalpy; from memory).
+    .. [2] Smith, G.P. et al. (1999), GRI-Mech 3.0; McBride, B.J., Gordon, S.,
+       Reno, M.A. (1993), NASA TM-4513 (ideal-gas NASA-7 data).
+    .. [3] Lemmon, E.W., Jacobsen, R.T., Penoncello, S.G., Friend, D.G. (2000),
+       Thermodynamic properties of air and mixtures of nitrogen, argon and
+       oxygen, J. Phys. Chem. Ref. Data 29, 331-385 (comparison only).
     """
     t1 = check_range("t_in", t_in, -50.0, 300.0, "°C")
     p1 = check_range("p_in_bar", p_in_bar, 0.3, 50.0, "bar")

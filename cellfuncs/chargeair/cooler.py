@@ -90,6 +90,21 @@ def dew_point(p_bar, lambda_, comp, t_ambient, rh_ambient,
     ------
     CellInputError
         A dry mixture (rh 0 and no water in the gas) has no dew point.
+
+    Notes
+    -----
+    The water partial pressure y_w·p equals the saturation pressure
+    (IAPWS-IF97 region 4, over ice below 0.01 °C; enhancement factor 1).
+    Validity (checked, else CellInputError): p_bar 0.5 to 50 bar(a),
+    t_ambient -50 to 60 °C, rh_ambient 0 to 1, p_ambient_bar 0.5 to 1.2
+    bar(a), λ in (0, 20].
+
+    References
+    ----------
+    .. [1] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
+    .. [2] ISO 3046-1:2002, standard reference conditions 25 °C, 30 % relative
+       humidity, 100 kPa (the defaults of the ambient state; from memory).
     """
     p = _p(p_bar)
     mix = _mix(lambda_, comp, t_ambient, rh_ambient, p_ambient_bar)
@@ -106,6 +121,11 @@ def outlet_state(mix: ChargeMixture, t_out: float, p: float) -> tuple:
     -------
     (n_vapour, n_condensate) : tuple of float
         [mol / mol dry air].
+
+    References
+    ----------
+    .. [1] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
     """
     T = t_out + 273.15
     if T >= humid.T_CRIT:
@@ -161,6 +181,25 @@ def duty(mixture_flow_kg_h, t_in, t_out, p_bar, lambda_, comp, t_ambient, rh_amb
     CellInputError
         t_out above t_in; t_in below the dew point at p_bar (the inlet must be
         vapour only); condensation below 0.01 °C.
+
+    Notes
+    -----
+    duty = ṅ_air·(H_in − H_out) with the ideal-gas enthalpies (NASA-7) of the
+    mixture and, below the dew point, the latent heat L(t_out) of the water
+    condensed (L = h'' − h' from Clausius-Clapeyron with the IAPWS auxiliary
+    equations); the condensate leaves as liquid at t_out.  Validity (checked,
+    else CellInputError): t_in and t_out -40 to 400 °C, p_bar 0.5 to 50
+    bar(a), condensation only above 0.01 °C, t_ambient -50 to 60 °C,
+    rh_ambient 0 to 1, p_ambient_bar 0.5 to 1.2 bar(a), λ in (0, 20].
+
+    References
+    ----------
+    .. [1] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
+    .. [2] Smith, G.P. et al. (1999), GRI-Mech 3.0; McBride, B.J., Gordon, S.,
+       Reno, M.A. (1993), NASA TM-4513 (ideal-gas NASA-7 data).
+    .. [3] Wagner, W., Pruss, A. (1993), J. Phys. Chem. Ref. Data 22, 783-787
+       (auxiliary equations for the saturated densities).
     """
     m = check_range("mixture_flow_kg_h", mixture_flow_kg_h, 0.0, None, "kg/h")
     t1 = _check_t("t_in", t_in)
@@ -203,6 +242,24 @@ def condensate(mixture_flow_kg_h, t_out, p_bar, lambda_, comp, t_ambient, rh_amb
     -------
     float
         Condensate [kg/h]; 0 at or above the dew point.
+
+    Raises
+    ------
+    CellInputError
+        Condensation below 0.01 °C (ice is not covered).
+
+    Notes
+    -----
+    The vapour left at (t_out, p_bar) is n_v = n_other·p_s/(p − p_s) per mole
+    of dry air (p_s by IAPWS-IF97 region 4); the rest of the water condenses.
+    Validity (checked, else CellInputError): t_out -40 to 400 °C, p_bar 0.5 to
+    50 bar(a), condensation only above 0.01 °C, t_ambient -50 to 60 °C,
+    rh_ambient 0 to 1, p_ambient_bar 0.5 to 1.2 bar(a), λ in (0, 20].
+
+    References
+    ----------
+    .. [1] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
     """
     m = check_range("mixture_flow_kg_h", mixture_flow_kg_h, 0.0, None, "kg/h")
     t2 = _check_t("t_out", t_out)

@@ -135,6 +135,15 @@ def p_sat_K(T_K: float) -> float:
     """Saturation pressure of water [Pa] at T_K [K]: over ice below 273.16 K, over liquid above.
 
     Raises :class:`~cellfuncs.errors.CellInputError` outside 190-647.096 K.
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
     """
     if T_K < T_TRIPLE:
         if not T_K >= T_LOW:
@@ -148,7 +157,17 @@ def p_sat_K(T_K: float) -> float:
 
 
 def t_sat_K(p_Pa: float) -> float:
-    """Saturation (dew or frost point) temperature [K] of water vapour at partial pressure p_Pa [Pa]."""
+    """Saturation (dew or frost point) temperature [K] of water vapour at partial pressure p_Pa [Pa].
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
+    """
     if not p_Pa > 0:
         raise CellInputError(f"p_water: {fmt(p_Pa)} Pa must be above 0 (no water vapour, no dew point)")
     if p_Pa >= P_TRIPLE:
@@ -163,7 +182,17 @@ def t_sat_K(p_Pa: float) -> float:
 
 
 def p_sat_c(t_c: float) -> float:
-    """Saturation pressure of water [Pa] at t_c [°C] (see :func:`p_sat_K`)."""
+    """Saturation pressure of water [Pa] at t_c [°C] (see :func:`p_sat_K`).
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
+    """
     return p_sat_K(t_c + 273.15)
 
 
@@ -173,6 +202,15 @@ def dew_point_c(y_water: float, p_bar: float) -> float:
     Frost point (over ice) when below 0.01 °C.  Enhancement factor neglected.
     A gas too dry for the saturation equations is an error that names the
     humidity (the water in a cell user's mixture comes from ``rh_ambient``).
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
     """
     p_w = y_water * p_bar * 1e5
     if 0.0 < p_w < _p_ice(T_LOW):
@@ -183,7 +221,17 @@ def dew_point_c(y_water: float, p_bar: float) -> float:
 
 def vapour_pressure(t_c: float, rh: float, name_t: str = "t_ambient",
                     name_rh: str = "rh_ambient") -> float:
-    """Partial pressure of water [Pa] in air at t_c [°C] and relative humidity rh [-] (0-1)."""
+    """Partial pressure of water [Pa] in air at t_c [°C] and relative humidity rh [-] (0-1).
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
+    """
     check_range(name_rh, rh, 0.0, 1.0, "")
     check_range(name_t, t_c, T_LOW - 273.15, 100.0, "°C")
     return rh * p_sat_c(t_c)
@@ -191,7 +239,17 @@ def vapour_pressure(t_c: float, rh: float, name_t: str = "t_ambient",
 
 def vapour_mole_fraction(t_c: float, rh: float, p_bar: float, name_t: str = "t_ambient",
                          name_rh: str = "rh_ambient", name_p: str = "p_ambient_bar") -> float:
-    """Mole fraction of water [-] in humid air at t_c [°C], rh [-] and p_bar [bar(a)]."""
+    """Mole fraction of water [-] in humid air at t_c [°C], rh [-] and p_bar [bar(a)].
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
+    """
     pw = vapour_pressure(t_c, rh, name_t, name_rh)
     check_range(name_p, p_bar, 0.0, None, "bar", lo_open=True)
     if pw >= p_bar * 1e5:
@@ -205,6 +263,15 @@ def humidity_ratio(t_c: float, rh: float, p_bar: float, name_t: str = "t_ambient
     """Humidity ratio [kg water / kg dry air] of humid air at t_c [°C], rh [-], p_bar [bar(a)].
 
     w = ε·p_w/(p − p_w) with ε = M_water/M_dry_air = 0.621970.
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4).
+    .. [2] Wagner, W., Riethmann, T., Feistel, R., Harvey, A.H. (2011), New
+       equations for the sublimation pressure and melting pressure of H2O ice Ih,
+       J. Phys. Chem. Ref. Data 40, 043103 (over ice).
     """
     y = vapour_mole_fraction(t_c, rh, p_bar, name_t, name_rh, name_p)
     return EPS * y / (1.0 - y)
@@ -222,6 +289,15 @@ def latent_heat_K(T_K: float) -> float:
     Clausius-Clapeyron, L = T·(dp/dT)·(1/ρ'' − 1/ρ'), with dp/dT from IF97
     region 4 and the saturated densities from the Wagner & Pruss (1993)
     auxiliary equations; agrees with IAPWS-95 within 0.05 % at 0-200 °C.
+
+    References
+    ----------
+    .. [1] Wagner, W., Cooper, J.R., Dittmann, A. et al. (2000), The IAPWS
+       industrial formulation 1997 for the thermodynamic properties of water and
+       steam, J. Eng. Gas Turbines Power 122, 150-182 (region 4, dp/dT).
+    .. [2] Wagner, W., Pruss, A. (1993), International equations for the
+       saturation properties of ordinary water substance, J. Phys. Chem. Ref.
+       Data 22, 783-787 (saturated densities).
     """
     T = check_range("T", T_K, 273.15, 640.0, "K")
     tau = 1.0 - T / T_CRIT

@@ -163,6 +163,14 @@ def charge_mixture(comp, lambda_, t_ambient=ISO_T_AMBIENT, rh_ambient=ISO_RH_AMB
     -------
     ChargeMixture
         Cached per input.
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, molar-mass table (fuel and air masses).
+    .. [2] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
+    .. [3] Baehr, H. D., Kabelac, S. (2016), Thermodynamik, 16th ed., chapter on
+       combustion (stoichiometric air; from memory).
     """
     t, rh, p = check_ambient(t_ambient, rh_ambient, p_ambient_bar)
     if comp is not None:
@@ -253,6 +261,18 @@ def mixture_flow(fuel_power_kw, lambda_, comp, kind="net", t_ambient=ISO_T_AMBIE
     -----
     Valid for complete mixing of air and gas before the compressor.  The
     fuel flow rests on the mass calorific value of ISO 6976:2016 at 25 °C.
+    Validity (checked, else CellInputError): fuel_power_kw >= 0,
+    t_ambient -50 to 60 °C, rh_ambient 0 to 1, p_ambient_bar 0.5 to 1.2
+    bar(a), λ in (0, 20].
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, clause 8 (calorific value on a mass basis) and the
+       molar-mass table.
+    .. [2] ISO 3046-1:2002, standard reference conditions 25 °C, 30 % relative
+       humidity, 100 kPa (the ambient defaults; from memory).
+    .. [3] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
     """
     p_kw = check_range("fuel_power_kw", fuel_power_kw, 0.0, None, "kW")
     which = _part(part)

@@ -69,7 +69,13 @@ def _comp(comp) -> Composition:
 
 
 def species_molar_mass(species: str) -> float:
-    """Molar mass of a flue-gas or fuel species (ISO 6976:2016 table; SO2 from atomic weights). [kg/kmol]"""
+    """Molar mass of a flue-gas or fuel species (ISO 6976:2016 table; SO2 from atomic weights). [kg/kmol]
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, component molar-mass table; SO2 from the same atomic
+       weights (IUPAC 2005, from memory).
+    """
     if species in _EXTRA_M:
         return _EXTRA_M[species]
     return iso6976.component_table()[species]["molar_mass"]
@@ -77,12 +83,23 @@ def species_molar_mass(species: str) -> float:
 
 @lru_cache(maxsize=1)
 def dry_air_molar_mass() -> float:
-    """Molar mass of :data:`DRY_AIR` with the ISO 6976:2016 molar masses (28.96541). [kg/kmol]"""
+    """Molar mass of :data:`DRY_AIR` with the ISO 6976:2016 molar masses (28.96541). [kg/kmol]
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, component molar-mass table; dry-air composition common
+       practice.
+    """
     return math.fsum(x * species_molar_mass(s) for s, x in DRY_AIR.items())
 
 
 def atoms(comp) -> tuple:
-    """Mole-weighted atoms per mole of fuel (C, H, O, N, S). [mol/mol]"""
+    """Mole-weighted atoms per mole of fuel (C, H, O, N, S). [mol/mol]
+
+    References
+    ----------
+    .. [1] Arithmetic (molecular formulas of the components).
+    """
     return _atoms(_comp(comp))
 
 
@@ -122,6 +139,11 @@ def products(comp) -> dict:
         ``{species: mol per mol fuel}`` for :data:`FLUE_SPECIES` (O2 = 0),
         without any air constituents; the fuel's own CO2, H2O, N2, Ar, He are
         included. [mol/mol]
+
+    References
+    ----------
+    .. [1] Baehr, H. D., Kabelac, S. (2016), Thermodynamik, 16th ed., chapter on
+       combustion (stoichiometry; from memory).
     """
     c = _comp(comp)
     nc, nh, _, nn, ns = atoms(c)
@@ -146,12 +168,24 @@ def stoich_air_molar(comp) -> float:
     ------
     CellInputError
         If the gas needs no oxygen.
+
+    References
+    ----------
+    .. [1] Baehr, H. D., Kabelac, S. (2016), Thermodynamik, 16th ed., chapter on
+       combustion (stoichiometry; from memory).
     """
     return _need_combustible(_comp(comp)) / DRY_AIR["O2"]
 
 
 def stoich_air_mass(comp) -> float:
-    """Stoichiometric dry air on a mass basis, a_min·M_air/M_fuel. [kg air / kg fuel]"""
+    """Stoichiometric dry air on a mass basis, a_min·M_air/M_fuel. [kg air / kg fuel]
+
+    References
+    ----------
+    .. [1] Baehr, H. D., Kabelac, S. (2016), Thermodynamik, 16th ed., chapter on
+       combustion (stoichiometry; from memory).
+    .. [2] ISO 6976:2016, component molar-mass table.
+    """
     c = _comp(comp)
     return stoich_air_molar(c) * dry_air_molar_mass() / iso6976.molar_mass(c)
 
@@ -209,6 +243,11 @@ def flue_gas_fractions(comp, lambda_: float = 1.0, water_per_mol_dry_air: float 
     """Flue-gas mole fractions, wet or dry (water removed). [-]
 
     See :func:`flue_gas_moles` for the arguments.
+
+    References
+    ----------
+    .. [1] Baehr, H. D., Kabelac, S. (2016), Thermodynamik, 16th ed., chapter on
+       combustion (stoichiometry; from memory).
     """
     n = flue_gas_moles(comp, lambda_, water_per_mol_dry_air)
     if dry:
@@ -230,6 +269,10 @@ def fuel_mass_cv(comp, kind: str = "net", t_combustion: float = 25) -> float:
         ``"net"`` (default, engine datasheets) or ``"gross"``.
     t_combustion : float
         0, 15, 20 or 25. [°C]
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, clause 8 (calorific value on a mass basis).
     """
     return iso6976.mass_cv(_comp(comp), kind, t_combustion)
 
@@ -244,19 +287,37 @@ def air_requirement(comp, basis: str = "volume") -> float:
     Parameters
     ----------
     comp : Composition
+        Fuel composition (mole fractions, normalised). [-]
     basis : str
-        ``"volume"``: m³ air per m³ gas as the molar ratio (ideal gas);
-        ``"mass"``: kg air per kg gas.
+        ``"volume"`` (also ``"molar"``, ``"mole"``): m³ air per m³ gas as the
+        molar ratio (ideal gas); ``"mass"``: kg air per kg gas.
 
     Returns
     -------
     air : float
-        [m³/m³] or [kg/kg].
+        Stoichiometric dry air a_min = (C + H/4 + S − O/2)/0.20946 [m³/m³], or
+        a_min·M_air/M_gas [kg/kg].
+
+    Raises
+    ------
+    CellInputError
+        The gas needs no oxygen (no combustibles, or more O2 than they use).
+    CellTypeError
+        Unknown basis.
 
     Notes
     -----
-    Dry air O2 0.20946 mole fraction (common practice).  The volume ratio is
-    the molar ratio; real-gas volumes differ by Z_gas/Z_air (< 0.3 %).
+    Complete combustion in dry air of O2 0.20946 mole fraction (common
+    practice); valid for any composition of the component list (no range
+    limit beyond a positive oxygen demand).  The volume ratio is the molar
+    ratio; real-gas volumes differ by Z_gas/Z_air (< 0.3 %).  Molar masses of
+    ISO 6976:2016.
+
+    References
+    ----------
+    .. [1] Baehr, H. D., Kabelac, S. (2016), Thermodynamik, 16th ed., chapter on
+       combustion (stoichiometry; from memory).
+    .. [2] ISO 6976:2016, component molar-mass table.
     """
     c = _comp(comp)
     b = (basis or "volume").strip().lower() if isinstance(basis, str) else basis
@@ -311,17 +372,36 @@ def fuel_flow(comp, fuel_power_kw: float, kind: str = "net", ref="25/0") -> floa
     Parameters
     ----------
     comp : Composition
+        Fuel composition (mole fractions, normalised). [-]
     fuel_power_kw : float
-        Fuel (heat input) power on the chosen kind. [kW]
+        Fuel (heat input) power on the chosen kind, >= 0. [kW]
     kind : str
-        ``"net"`` (default) or ``"gross"``.
+        ``"net"`` (default) or ``"gross"`` (aliases LHV/HHV, inferior/superior).
     ref : str
-        ``"t1/t2"`` [°C], default ``"25/0"``.
+        ``"t1/t2"`` combustion/metering temperatures [°C], default ``"25/0"``.
 
     Returns
     -------
     flow : float
-        [m³/h] at t2 and 1.01325 bar (real gas).
+        Gas volume flow at t2 and 1.01325 bar (real gas). [m³/h]
+
+    Raises
+    ------
+    CellInputError
+        Negative power; t1 not 0, 15, 20 or 25 °C, t2 not 0, 15 or 20 °C; Z at
+        or below 0.9 (outside ISO 6976:2016); a gas without calorific value.
+
+    Notes
+    -----
+    Hv = H(kind, t1)·p2/(Z·R·T2) of ISO 6976:2016.  Valid inside the
+    standard's scope: Z > 0.9 at metering conditions, the tabulated reference
+    temperatures.  Estimate for tendering; the gas meter's own conditions may
+    differ.
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, clause 8 (calorific value on a volume basis) and clause 7
+       (compression factor).
     """
     c = _comp(comp)
     p = check_range("fuel_power_kw", fuel_power_kw, 0.0, None, "kW")
@@ -329,7 +409,40 @@ def fuel_flow(comp, fuel_power_kw: float, kind: str = "net", ref="25/0") -> floa
 
 
 def fuel_power(comp, flow_m3h: float, kind: str = "net", ref="25/0") -> float:
-    """Fuel power of a gas volume flow, P = Q·Hv/3.6; inverse of :func:`fuel_flow`. [kW]"""
+    """Fuel power of a gas volume flow, P = Q·Hv/3.6; inverse of :func:`fuel_flow`.
+
+    Parameters
+    ----------
+    comp : Composition
+        Fuel composition (mole fractions, normalised). [-]
+    flow_m3h : float
+        Gas volume flow at the metering conditions t2 and 1.01325 bar, >= 0. [m³/h]
+    kind : str
+        ``"net"`` (default) or ``"gross"`` (aliases LHV/HHV, inferior/superior).
+    ref : str
+        ``"t1/t2"`` combustion/metering temperatures [°C], default ``"25/0"``.
+
+    Returns
+    -------
+    power : float
+        Fuel (heat input) power on the chosen kind. [kW]
+
+    Raises
+    ------
+    CellInputError
+        As :func:`fuel_flow` (negative flow instead of negative power).
+
+    Notes
+    -----
+    Hv = H(kind, t1)·p2/(Z·R·T2) of ISO 6976:2016.  Valid inside the
+    standard's scope: Z > 0.9 at metering conditions, the tabulated reference
+    temperatures.
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, clause 8 (calorific value on a volume basis) and clause 7
+       (compression factor).
+    """
     c = _comp(comp)
     q = check_range("flow_m3h", flow_m3h, 0.0, None, "m³/h")
     return q * _energy_per_m3(c, kind, ref) / 3.6

@@ -16,6 +16,9 @@ Rules
 * Amounts are mol% (sum near 100) or mole fractions (sum near 1), told apart
   by the sum; a sum more than 2 % away from 100 % is an error stating the sum.
   Within that tolerance the composition is normalised.
+* An amount must be a number.  Text is refused, numeric text too ("90",
+  "95,5 %", "1,000": the last could be one or a thousand), with a
+  CellTypeError naming the argument and the row.
 * Blank rows are skipped; a name with a blank amount counts as absent (so a
   template listing every component can be filled in partly).  A first row of
   two texts that are neither a component nor a number is taken as a heading.
@@ -253,8 +256,24 @@ def cell_cached(fn):
 # parsing
 
 
+def _numeric_text(s: str) -> bool:
+    """Text that a reader would take for a number ("90", "95,5 %", "1,000", "1.000,5")."""
+    t = s.strip().rstrip("%").replace(" ", "").replace("\u00a0", "")
+    for cand in (t.replace(",", "."), t.replace(",", ""), t.replace(".", "").replace(",", ".")):
+        try:
+            float(cand)
+        except ValueError:
+            continue
+        return True
+    return False
+
+
 def _amount(cell, arg: str, where: str):
-    """An amount cell -> float or None (blank)."""
+    """An amount cell -> float or None (blank).
+
+    Text is refused, numeric-looking text too: "1,000" could be one or a
+    thousand, so an amount must be entered as a number.
+    """
     if cell is None:
         return None
     if isinstance(cell, bool):
@@ -265,10 +284,8 @@ def _amount(cell, arg: str, where: str):
         s = cell.strip()
         if s == "":
             return None
-        try:
-            v = float(s.replace(",", ".").rstrip("%").strip())
-        except ValueError:
-            raise CellTypeError(f'{arg}: {where} amount "{s}" is not a number') from None
+        raise CellTypeError(f"{arg}: {where} holds the text {s!r}, not a number"
+                            + (" (enter it as a number)" if _numeric_text(s) else ""))
     else:
         raise CellTypeError(f"{arg}: {where} amount {cell!r} is not a number")
     if not math.isfinite(v):
@@ -291,11 +308,7 @@ def _is_header(ncell, acell) -> bool:
     """First row with text in both cells, neither a component nor a number."""
     if not (isinstance(ncell, str) and isinstance(acell, str)) or _key(ncell) in _LOOKUP:
         return False
-    try:
-        float(acell.replace(",", ".").rstrip("%").strip())
-    except ValueError:
-        return True
-    return False
+    return not _numeric_text(acell)
 
 
 def _finish(pairs: tuple, name_arg: str, amount_arg: str) -> Composition:

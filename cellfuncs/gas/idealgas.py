@@ -209,7 +209,16 @@ def _entry(sp: str):
 
 
 def species_poly(sp: str) -> Nasa7:
-    """The :class:`Nasa7` polynomial of one species (canonical id, e.g. ``"CH4"``)."""
+    """The :class:`Nasa7` polynomial of one species (canonical id, e.g. ``"CH4"``).
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
+    """
     return _entry(sp)[0]
 
 
@@ -232,6 +241,14 @@ def mix_poly(x) -> Nasa7:
     -------
     Nasa7
         Cached per composition.
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
     """
     return _mix_cached(_key(x))
 
@@ -251,7 +268,13 @@ def _mix_cached(key: tuple) -> Nasa7:
 
 
 def molar_mass(sp: str) -> float:
-    """Molar mass [g/mol] of a species (ISO 6976:2016 figures; SO2 from the same atomic weights)."""
+    """Molar mass [g/mol] of a species (ISO 6976:2016 figures; SO2 from the same atomic weights).
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, component molar-mass table; SO2 from the same atomic
+       weights (IUPAC 2005, from memory).
+    """
     return species_poly(sp).molar_mass
 
 
@@ -264,7 +287,13 @@ def _mix_total(x):
 
 
 def molar_mass_mix(x) -> float:
-    """Mean molar mass [g/mol] of a mixture given by mole fractions (normalised here)."""
+    """Mean molar mass [g/mol] of a mixture given by mole fractions (normalised here).
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, component molar-mass table; SO2 from the same atomic
+       weights (IUPAC 2005, from memory).
+    """
     p, total = _mix_total(x)
     return p.molar_mass / total
 
@@ -288,31 +317,75 @@ def cp_molar(sp: str, T_K: float) -> float:
     -------
     float
         cp [J/(mol·K)].
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
     """
     p = species_poly(sp)
     return p.cp(_check_T(T_K, sp))
 
 
 def h_molar(sp: str, T_K: float) -> float:
-    """Ideal-gas molar enthalpy [J/mol] at T_K [K], standard formation enthalpy included."""
+    """Ideal-gas molar enthalpy [J/mol] at T_K [K], standard formation enthalpy included.
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
+    """
     p = species_poly(sp)
     return p.h(_check_T(T_K, sp))
 
 
 def s0_molar(sp: str, T_K: float) -> float:
-    """Ideal-gas molar standard entropy at 1 bar [J/(mol·K)] at T_K [K]."""
+    """Ideal-gas molar standard entropy at 1 bar [J/(mol·K)] at T_K [K].
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
+    """
     p = species_poly(sp)
     return p.s0(_check_T(T_K, sp))
 
 
 def cp_mix(x, T_K: float) -> float:
-    """Molar cp [J/(mol·K)] of a mixture given by mole fractions (normalised here)."""
+    """Molar cp [J/(mol·K)] of a mixture given by mole fractions (normalised here).
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
+    """
     p, total = _mix_total(x)
     return p.cp(_check_T(T_K)) / total
 
 
 def h_mix(x, T_K: float) -> float:
-    """Molar enthalpy [J/mol] of a mixture given by mole fractions (normalised here)."""
+    """Molar enthalpy [J/mol] of a mixture given by mole fractions (normalised here).
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
+    """
     p, total = _mix_total(x)
     return p.h(_check_T(T_K)) / total
 
@@ -322,6 +395,14 @@ def s0_mix(x, T_K: float) -> float:
 
     The ideal mixing term ``-R·Σ x ln x`` is not included (it cancels in any
     process of fixed composition, such as an isentropic compression).
+
+    References
+    ----------
+    .. [1] Smith, G.P., Golden, D.M., Frenklach, M. et al. (1999), GRI-Mech 3.0,
+       thermodynamic data file.
+    .. [2] McBride, B.J., Gordon, S., Reno, M.A. (1993), Coefficients for
+       calculating thermodynamic and transport properties of individual species,
+       NASA TM-4513.
     """
     p, total = _mix_total(x)
     return p.s0(_check_T(T_K)) / total

@@ -74,6 +74,11 @@ def component_table() -> dict:
     Fields: ``molar_mass`` [kg/kmol], ``hc_0 … hc_25`` ideal-gas molar gross
     calorific value at combustion 0/15/20/25 °C [kJ/mol] (water: L°),
     ``u_hc`` [kJ/mol], ``s_0, s_15, s_20`` summation factors [-], ``u_s`` [-].
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, the component tables (molar masses, calorific values,
+       summation factors and their uncertainties).
     """
     path = Path(__file__).resolve().parent.parent / "data" / "iso6976_2016.csv"
     with path.open(newline="", encoding="utf-8") as fh:

@@ -246,7 +246,38 @@ def _en16726(ids: tuple, x: tuple) -> MethaneNumber:
 
 
 def en16726_details(comp) -> MethaneNumber:
-    """Full EN 16726 Annex A result (cached) for a mapping ``{id: fraction}`` or a Composition."""
+    """Full EN 16726 Annex A result (cached) for a mapping ``{id: fraction}`` or a Composition.
+
+    Parameters
+    ----------
+    comp : mapping or Composition
+        ``{canonical id: mole fraction}`` (any positive scale; normalised on a
+        dry, O2-free basis). [-]
+
+    Returns
+    -------
+    MethaneNumber
+        The methane number [-] with the combustible MN [-], the inert term [-],
+        the shares of combustibles, CO2 and N2 [vol-%], the split plan, the
+        partial mixtures, the a22 sign spread [-] and the cautions.
+
+    Raises
+    ------
+    CellInputError
+        As :func:`methane_number_en16726`.
+
+    Notes
+    -----
+    Validity as :func:`methane_number_en16726` (pentanes and hexanes-plus at
+    most 3 vol-% each and 5 vol-% together, argon plus helium at most 1 vol-%,
+    no ammonia, combustibles at least 35 vol-% of the dry gas).  The result is
+    cached on the (ids, fractions) tuple.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    """
     ids, x = _items(comp)
     if not ids:
         raise CellInputError("components: the composition is empty")
@@ -383,7 +414,45 @@ def _method(method) -> str:
 
 
 def methane_number(comp, method: str = "en16726") -> float:
-    """Methane number of a gas by ``method`` ``"en16726"`` or ``"linear"``. [-]"""
+    """Methane number of a gas by ``method`` ``"en16726"`` or ``"linear"``.
+
+    Parameters
+    ----------
+    comp : mapping or Composition
+        ``{canonical id: mole fraction}`` (any positive scale; taken on a dry,
+        O2-free basis). [-]
+    method : str
+        ``"en16726"`` (EN 16726:2015 Annex A, default) or ``"linear"``
+        (Kubesh, King & Liss 1992); aliases such as ``"annex a"`` or
+        ``"kubesh"`` are accepted, blank or None means ``"en16726"``.
+
+    Returns
+    -------
+    mn : float
+        Methane number (methane = 100, hydrogen = 0). [-]
+
+    Raises
+    ------
+    CellInputError
+        Unknown method; otherwise as :func:`methane_number_en16726` or
+        :func:`methane_number_linear`.
+
+    Notes
+    -----
+    Dispatches to :func:`methane_number_en16726` or
+    :func:`methane_number_linear`; see those for the validity range (EN 16726:
+    pentanes and hexanes-plus at most 3 vol-% each and 5 vol-% together,
+    argon plus helium at most 1 vol-%, no ammonia; linear: pipeline-type
+    natural gas with at least 70 vol-% methane and no H2, CO, H2S or NH3).
+    Estimate for tendering.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    .. [2] Kubesh, J., King, S. R., Liss, W. E. (1992). Effect of gas composition
+       on octane number of natural gas fuels. SAE Technical Paper 922359.
+    """
     m = _method(method)
     return methane_number_en16726(comp) if m == "en16726" else methane_number_linear(comp)
 
@@ -395,8 +464,36 @@ def basis_text(comp, method: str = "en16726") -> str:
     combustibles, the inert correction, the effect of the uncertain sign of the
     inert term a22, a CAUTION when the doubtful diagram D06 is used (else "D06 not
     used"), a note for the high-order diagrams D09-D11 and for argon/helium.
-    For ``"linear"``: the correlation and its scope.  Errors as for
-    :func:`methane_number`.
+    For ``"linear"``: the correlation and its scope.
+
+    Parameters
+    ----------
+    comp : mapping or Composition
+        ``{canonical id: mole fraction}`` (any positive scale). [-]
+    method : str
+        ``"en16726"`` (default) or ``"linear"``, as :func:`methane_number`.
+
+    Returns
+    -------
+    str
+        One line of text; the methane numbers in it are [-], the shares [vol-%].
+
+    Raises
+    ------
+    CellInputError
+        As :func:`methane_number`.
+
+    Notes
+    -----
+    Validity as :func:`methane_number`.  The text is for the tender record; it
+    does not replace the engine's declared gas-quality limits.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    .. [2] Kubesh, J., King, S. R., Liss, W. E. (1992). Effect of gas composition
+       on octane number of natural gas fuels. SAE Technical Paper 922359.
     """
     m = _method(method)
     if m == "linear":

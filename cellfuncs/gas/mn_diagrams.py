@@ -62,7 +62,13 @@ DOUBTFUL = {**SUSPECT, **HIGH_ORDER}
 
 @lru_cache(maxsize=1)
 def annex() -> dict:
-    """The figures of EN 16726:2015 Annex A as stored (dict read from the JSON file)."""
+    """The figures of EN 16726:2015 Annex A as stored (dict read from the JSON file).
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    """
     with DATA_FILE.open(encoding="utf-8") as fh:
         return json.load(fh)
 
@@ -158,18 +164,36 @@ def _build(entry: dict) -> Diagram:
 
 @lru_cache(maxsize=1)
 def diagrams() -> dict:
-    """Code (``"D01"`` ... ``"D18"``) -> :class:`Diagram` of the combustible diagrams."""
+    """Code (``"D01"`` ... ``"D18"``) -> :class:`Diagram` of the combustible diagrams.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    """
     return {d.code: d for d in (_build(e) for e in annex()["diagrams"])}
 
 
 def diagram(code: str) -> Diagram:
-    """One combustible diagram by code (``"D04"``)."""
+    """One combustible diagram by code (``"D04"``).
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    """
     return diagrams()[code]
 
 
 @lru_cache(maxsize=1)
 def inert_diagram() -> Diagram:
-    """The inert diagram D20: x = combustibles, y = CO2, z = N2, vol-% of the whole gas."""
+    """The inert diagram D20: x = combustibles, y = CO2, z = N2, vol-% of the whole gas.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    """
     return _build(annex()["inert_correction"])
 
 
@@ -310,7 +334,13 @@ class Ray:
 
 @lru_cache(maxsize=64)
 def edge(code: str, hub: str, other: str) -> Ray:
-    """The (cached) binary edge ``hub``-``other`` of diagram ``code``."""
+    """The (cached) binary edge ``hub``-``other`` of diagram ``code``.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
+    """
     return Ray(code, hub, ((other, 1.0),), n=2000)
 
 
@@ -333,6 +363,11 @@ def solve_increasing(h, lo: float, hi: float, tol: float = 1e-10, switches: tupl
     root : float or None
         None when there is no sign change in [lo, hi], a contradiction is met,
         or the bracket closes on a jump that is not a switch point.
+
+    References
+    ----------
+    .. [1] Dowell, M., Jarratt, P. (1971), A modified regula falsi method for
+       computing the root of an equation, BIT 11, 168-174 (Illinois method).
     """
     flo, fhi = h(lo), h(hi)
     if math.isnan(flo) or math.isnan(fhi) or flo > 0 or fhi < 0:

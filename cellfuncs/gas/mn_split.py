@@ -285,6 +285,11 @@ def split_combustibles(groups: tuple) -> tuple:
 
     D06 is used only in plan 3 below MN 9.9 with butanes present and as the
     last single diagram, i.e. only where nothing else covers the gas.
+
+    References
+    ----------
+    .. [1] EN 16726:2015, Gas infrastructure - Quality of gas - Group H, Annex A
+       (figures as published in open transcriptions; unverified against Table A.10).
     """
     c = {g: v for g, v in groups if v > 0}
     if len(c) == 1:

@@ -144,6 +144,23 @@ def cv_uncertainty(comp, u_x: dict, kind: str = "gross", basis: str = "volume", 
         Coverage factor k, 1 to 5 (2 ≈ 95 %). [-]
 
     See :func:`cv_standard_uncertainty` for the other arguments.
+
+    Returns
+    -------
+    U : float
+        Expanded uncertainty in the unit of the basis: [MJ/m³] (volume),
+        [MJ/kg] (mass) or [kJ/mol] (molar).
+
+    Notes
+    -----
+    U = k·u with u from :func:`cv_standard_uncertainty` (inputs uncorrelated).
+    Validity: the scope of ISO 6976:2016 as for
+    :func:`cellfuncs.gas.iso6976.calorific_value`; k checked in 1 to 5.
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, Annex B (uncertainty) and Annex D, Example 1.
+    .. [2] JCGM 100:2008 (GUM), clause 6 (expanded uncertainty).
     """
     k = check_range("coverage", coverage, 1.0, 5.0, "-")
     return k * cv_standard_uncertainty(comp, u_x, kind, basis, ref, p_metering_bar)

@@ -40,6 +40,13 @@ def capacity_terms(thi, tho, tci, tco):
     tuple
         (ε [-], Cr [-], P [-], R [-]); ε and Cr refer to the stream with the
         smaller capacity rate (the larger temperature change).
+
+    References
+    ----------
+    Bowman, R. A., Mueller, A. C., Nagle, W. M. (1940). Mean temperature
+    difference in design. Trans. ASME 62, 283-294.
+    Shah, R. K., Sekulic, D. P. (2003). Fundamentals of Heat Exchanger
+    Design, section 3.7 (P, R and the F factor; from memory).
     """
     dh = thi - tho
     dc = tco - tci
@@ -66,7 +73,15 @@ def _infeasible(arr, cr, p, r, cold_is_cmin):
 
 
 def f_of_streams(thi, tho, tci, tco, arr):
-    """F for checked floats and a canonical arrangement word [-]."""
+    """F for checked floats and a canonical arrangement word [-].
+
+    References
+    ----------
+    Bowman, R. A., Mueller, A. C., Nagle, W. M. (1940). Mean temperature
+    difference in design. Trans. ASME 62, 283-294.
+    Shah, R. K., Sekulic, D. P. (2003). Fundamentals of Heat Exchanger
+    Design, section 3.7 (P, R and the F factor; from memory).
+    """
     if not (thi > tco and tho > tci):
         terminal_differences(thi, tho, tci, tco, "counter")  # raises, naming the cross
     if arr == "counter":

@@ -289,6 +289,11 @@ def epsilon_max(c_ratio: float, arrangement: str = "counter") -> float:
         flow, (1 − exp(−Cr))/Cr with Cmax mixed, 1 − exp(−1/Cr) with Cmin
         mixed and the N-shell relation at ε1 = 2/(1 + Cr + √(1 + Cr²)).
         The limit itself needs an infinite area.
+
+    References
+    ----------
+    Shah, R. K., Sekulic, D. P. (2003). Fundamentals of Heat Exchanger
+    Design, Table 3.3 (the ε-NTU relations, taken as NTU → ∞).
     """
     cr = c_ratio
     arr = (arrangement if type(arrangement) is str and arrangement in _KNOWN

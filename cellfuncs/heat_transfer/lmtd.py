@@ -44,6 +44,11 @@ def lmtd_of_differences(dt1: float, dt2: float) -> float:
     float
         (dt1 − dt2)/ln(dt1/dt2), evaluated as m·x/atanh(x) when the ratio
         lies within 1/3 to 3 [K].
+
+    References
+    ----------
+    Bergman, T. L., Lavine, A. S., Incropera, F. P., DeWitt, D. P. (2011).
+    Fundamentals of Heat and Mass Transfer, 7th ed., section 11.3.
     """
     s = dt1 + dt2
     d = dt1 - dt2

@@ -141,7 +141,30 @@ def t_limit(p_boost_bar, compression_ratio, methane_number, t_ref, p_ref_bar, mn
     Returns
     -------
     float
-        T_allow [°C].
+        T_allow, the highest mixture temperature after the cooler at which the
+        end-gas ignition delay stays at its reference value, shifted by
+        k_per_mn per methane-number point of the site's gas [°C].
+
+    Notes
+    -----
+    T_c,ref = (t_ref + 273.15)·ε_ref^(n−1); 1/T_c,lim = 1/T_c,ref +
+    (a/B)·ln(p·ε^n / (p_ref·ε_ref^n)); T_allow = T_c,lim/ε^(n−1) − 273.15 +
+    k·(MN − MN_ref).  A screening index calibrated to one declared point, not a
+    knock prediction; load (BMEP) and ignition timing are not covered.
+    Validity (checked, else CellInputError): t_ref -30 to 150 °C,
+    p_boost_bar and p_ref_bar 0.5 to 10 bar(a), compression ratios 4 to 25,
+    methane numbers 0 to 150, k_per_mn 0.05 to 10 K, n_poly 1.0 to 1.6,
+    activation_k 1,000 to 100,000 K, pressure_exp 0 to 3.
+
+    References
+    ----------
+    .. [1] Livengood, J.C., Wu, P.C. (1955), Correlation of autoignition phenomena
+       in internal combustion engines and rapid compression machines, Fifth
+       Symposium (International) on Combustion, 347-356.
+    .. [2] Spadaccini, L.J., Colket, M.B. (1994), Ignition delay characteristics of
+       methane fuels, Prog. Energy Combust. Sci. 20, 431-460.
+    .. [3] Bade Shrestha, S.O., Rodrigues, R. (2008), Effects of diluents on knock
+       limited performance of a spark ignition engine (SAE paper).
     """
     p, eps, tr, pr, mnr, eps_r, k, n, b, a = _checked(
         p_boost_bar, compression_ratio, t_ref, p_ref_bar, mn_ref, compression_ratio_ref,
@@ -172,16 +195,52 @@ def margin(t_mixture, p_boost_bar, compression_ratio, methane_number, t_ref, p_r
     ----------
     t_mixture : float
         Mixture temperature after the charge-air cooler at the site [°C].
+    p_boost_bar : float
+        Boost (receiver) pressure at the site [bar(a)].
+    compression_ratio : float
+        Geometric, or for early/late inlet-valve closing the effective,
+        compression ratio [-].
+    methane_number : float
+        Methane number of the site's gas [-].
+    t_ref, p_ref_bar, mn_ref : float
+        Declared knock-free reference point: mixture temperature [°C], boost
+        pressure [bar(a)], methane number [-].
+    compression_ratio_ref : float, optional
+        Compression ratio at the reference point [-] (default: compression_ratio).
     output : str
         ``"k"``: kelvin the mixture may still warm up before the calibrated
         limit [K]; ``"mn"``: the same in methane-number points [-].
-    others
-        As :func:`t_limit`.
+    k_per_mn : float
+        Allowed mixture temperature gained per methane-number point [K].
+    n_poly : float
+        Polytropic exponent of compression [-].
+    activation_k : float
+        Ignition-delay activation temperature B [K].
+    pressure_exp : float
+        Ignition-delay pressure exponent a [-].
 
     Returns
     -------
     float
-        margin [K] or [-]; negative means beyond the limit.
+        margin [K] (``"k"``) or [-] (``"mn"``); negative means beyond the limit.
+
+    Notes
+    -----
+    margin_K = T_allow − t_mixture with T_allow from :func:`t_limit`;
+    margin_MN = margin_K / k_per_mn.  A screening index calibrated to one
+    declared point, not a knock prediction.  Validity (checked, else
+    CellInputError): t_mixture -30 to 150 °C; the other arguments as
+    :func:`t_limit`.
+
+    References
+    ----------
+    .. [1] Livengood, J.C., Wu, P.C. (1955), Correlation of autoignition phenomena
+       in internal combustion engines and rapid compression machines, Fifth
+       Symposium (International) on Combustion, 347-356.
+    .. [2] Spadaccini, L.J., Colket, M.B. (1994), Ignition delay characteristics of
+       methane fuels, Prog. Energy Combust. Sci. 20, 431-460.
+    .. [3] Bade Shrestha, S.O., Rodrigues, R. (2008), Effects of diluents on knock
+       limited performance of a spark ignition engine (SAE paper).
     """
     t = check_range("t_mixture", t_mixture, -30.0, 150.0, "°C")
     which = _output(output)
@@ -196,13 +255,50 @@ def mn_required(t_mixture, p_boost_bar, compression_ratio, t_ref, p_ref_bar, mn_
                 activation_k=B_DEFAULT, pressure_exp=A_DEFAULT) -> float:
     """Methane number the engine needs at this mixture temperature (KNOCK_MN_REQUIRED).
 
-    MN_req = MN_ref − (T_allow(MN_ref) − t_mixture)/k: the methane number at
-    which the margin is zero.  May be below 0 or above 100 (a far-off point).
+    Parameters
+    ----------
+    t_mixture : float
+        Mixture temperature after the charge-air cooler at the site [°C].
+    p_boost_bar : float
+        Boost (receiver) pressure at the site [bar(a)].
+    compression_ratio : float
+        Geometric, or for early/late inlet-valve closing the effective,
+        compression ratio [-].
+    t_ref, p_ref_bar, mn_ref : float
+        Declared knock-free reference point: mixture temperature [°C], boost
+        pressure [bar(a)], methane number [-].
+    compression_ratio_ref : float, optional
+        Compression ratio at the reference point [-] (default: compression_ratio).
+    k_per_mn : float
+        Allowed mixture temperature gained per methane-number point [K].
+    n_poly : float
+        Polytropic exponent of compression [-].
+    activation_k : float
+        Ignition-delay activation temperature B [K].
+    pressure_exp : float
+        Ignition-delay pressure exponent a [-].
 
     Returns
     -------
     float
         Required methane number [-].
+
+    Notes
+    -----
+    MN_req = MN_ref − (T_allow(MN_ref) − t_mixture)/k: the methane number at
+    which the margin is zero.  May be below 0 or above 100 (a far-off point).
+    Validity (checked, else CellInputError): t_mixture -30 to 150 °C; the
+    other arguments as :func:`t_limit`.
+
+    References
+    ----------
+    .. [1] Livengood, J.C., Wu, P.C. (1955), Correlation of autoignition phenomena
+       in internal combustion engines and rapid compression machines, Fifth
+       Symposium (International) on Combustion, 347-356.
+    .. [2] Spadaccini, L.J., Colket, M.B. (1994), Ignition delay characteristics of
+       methane fuels, Prog. Energy Combust. Sci. 20, 431-460.
+    .. [3] Bade Shrestha, S.O., Rodrigues, R. (2008), Effects of diluents on knock
+       limited performance of a spark ignition engine (SAE paper).
     """
     t = check_range("t_mixture", t_mixture, -30.0, 150.0, "°C")
     p, eps, tr, pr, mnr, eps_r, k, n, b, a = _checked(

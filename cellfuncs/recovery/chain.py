@@ -359,6 +359,10 @@ def chain_check(t_return: float, flow_m3h: float, duties_kw, hot_t_max, min_appr
     -----
     Only stages with a positive duty are checked against their source; a
     stage with a negative duty is a cooler and is not judged here.
+
+    References
+    ----------
+    See :func:`cellfuncs.recovery.water.hw_cp` (water and glycol properties).
     """
     approach = check_range("min_approach", min_approach, 0.0, None, "K")
     duties = list(duties_kw)

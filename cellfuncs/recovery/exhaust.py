@@ -71,6 +71,11 @@ def ambient_water(t_ambient: float = 25.0, rh_ambient: float = 0.3, p_ambient_ba
 
     ``w = y/(1 − y)`` with ``y = rh·p_sat(t)/p`` (IAPWS-IF97 saturation
     pressure from :mod:`cellfuncs.chargeair.humid`).
+
+    References
+    ----------
+    .. [1] Wagner, W. et al. (2000), IAPWS-IF97, J. Eng. Gas Turbines Power 122,
+       150-182 (saturation pressure, region 4).
     """
     from cellfuncs.chargeair import humid
 
@@ -129,7 +134,12 @@ def exhaust_moles(comp, lambda_: float, water_per_mol_dry_air: float = 0.0, air:
 
 def exhaust_fractions(comp, lambda_: float, water_per_mol_dry_air: float = 0.0,
                       dry: bool = False, air: dict | None = None) -> dict:
-    """Exhaust mole fractions [-], wet or dry (water removed); see :func:`exhaust_moles`."""
+    """Exhaust mole fractions [-], wet or dry (water removed); see :func:`exhaust_moles`.
+
+    References
+    ----------
+    See :mod:`cellfuncs.gas.combustion`.
+    """
     n = exhaust_moles(comp, lambda_, water_per_mol_dry_air, air)
     if dry:
         n["H2O"] = 0.0
@@ -143,6 +153,11 @@ def exhaust_mass_per_mol_fuel(comp, lambda_: float, water_per_mol_dry_air: float
 
     Mass is conserved by construction: ``M_fuel + λ·a_min·(M_air + w·M_H2O)``
     with the ISO 6976:2016 molar masses.
+
+    References
+    ----------
+    .. [1] ISO 6976:2016, component molar-mass table; stoichiometry as
+       :mod:`cellfuncs.gas.combustion`.
     """
     comb = _comb()
     from cellfuncs.gas import iso6976
@@ -267,7 +282,13 @@ def _poly(moles: dict):
 
 def exhaust_enthalpy_drop(comp, lambda_: float, t_in: float, t_out: float,
                           water_per_mol_dry_air: float = 0.0, air: dict | None = None) -> float:
-    """Specific enthalpy drop of the exhaust from t_in to t_out [kJ/kg] (ideal gas, no checks)."""
+    """Specific enthalpy drop of the exhaust from t_in to t_out [kJ/kg] (ideal gas, no checks).
+
+    References
+    ----------
+    .. [1] Smith, G.P. et al. (1999), GRI-Mech 3.0 (NASA-7 polynomials of the
+       species, :mod:`cellfuncs.gas.idealgas`).
+    """
     p = _poly(exhaust_moles(comp, lambda_, water_per_mol_dry_air, air))
     return (p.h(t_in + 273.15) - p.h(t_out + 273.15)) / p.molar_mass  # J/g = kJ/kg
 
@@ -383,23 +404,35 @@ def o2_correct(concentration: float, o2_measured: float, o2_reference: float) ->
     Parameters
     ----------
     concentration : float
-        Measured concentration on a dry basis (any unit, e.g. mg/m³) [-].
+        Measured concentration on a dry basis, >= 0 (any unit, e.g. [mg/m³] or
+        [ppm]; the result has the same unit).
     o2_measured : float
-        O2 measured, vol-% dry [-].
+        O2 measured in the dry exhaust, 0 to below 20.9 [vol-%].
     o2_reference : float
-        Reference O2, vol-% dry (e.g. 5 or 15) [-].
+        Reference O2 of the limit value, 0 to below 20.9 (e.g. 5 or 15) [vol-%].
 
     Returns
     -------
     float
         ``c·(20.9 − O2_ref)/(20.9 − O2_meas)``, same unit as ``concentration``.
 
+    Raises
+    ------
+    CellInputError
+        Negative concentration; an O2 content below 0 or at or above 20.9 vol-%.
+
     Notes
     -----
     The dilution correction used in emission permits, with 20.9 vol-% O2 in
     dry air (common practice; e.g. Quebec Clean Air Regulation, Q-2, r. 4.1,
     s. 71, for 15 % O2).  Some regulations use 21 in place of 20.9: check
-    the permit.
+    the permit.  Validity: both O2 contents in [0, 20.9) vol-% dry; the
+    concentration must be on the same dry basis as the O2 reading.
+
+    References
+    ----------
+    .. [1] Quebec Clean Air Regulation, CQLR c. Q-2, r. 4.1, s. 71 (correction
+       to 15 % O2 with 20.9 vol-% O2 in dry air).
     """
     c = check_range("concentration", concentration, 0.0, None, "")
     meas = check_range("o2_measured", o2_measured, 0.0, O2_AIR_PERCENT, "vol-%", hi_open=True,

@@ -32,16 +32,28 @@ def chp_heat_rate(electrical_efficiency: float) -> float:
     Parameters
     ----------
     electrical_efficiency : float
-        Electrical efficiency on the fuel's calorific value basis used [-].
+        Electrical efficiency on the fuel's calorific value basis used, in
+        (0, 1] [-].
 
     Returns
     -------
     float
         Heat rate ``3600/η_el`` [kJ/kWh], on the same calorific-value basis.
 
+    Raises
+    ------
+    CellInputError
+        η_el not in (0, 1].
+
     Notes
     -----
-    1 kWh = 3600 kJ (definition).
+    1 kWh = 3600 kJ (definition).  Validity (checked): 0 < η_el <= 1.  State
+    the calorific-value basis (net or gross) next to the result.
+
+    References
+    ----------
+    .. [1] BIPM (2019), The International System of Units (SI Brochure), 9th ed.,
+       Table 8 (kilowatt hour = 3.6 MJ).
     """
     return 3600.0 / _eff("electrical_efficiency", electrical_efficiency)
 
@@ -77,8 +89,8 @@ def chp_pes(electrical_efficiency: float, thermal_efficiency: float,
 
     References
     ----------
-    Directive 2012/27/EU of the European Parliament and of the Council on
-    energy efficiency, Annex II (b), OJ L 315, 14.11.2012.
+    .. [1] Directive 2012/27/EU of the European Parliament and of the Council on
+       energy efficiency, Annex II (b), OJ L 315, 14.11.2012.
     """
     el = _eff("electrical_efficiency", electrical_efficiency)
     th = check_range("thermal_efficiency", thermal_efficiency, 0.0, 1.0, "",
@@ -94,11 +106,11 @@ def chp_balance(fuel_power_kw: float, electrical_kw: float, heat_kw, output: str
     Parameters
     ----------
     fuel_power_kw : float
-        Fuel power input [kW] (state the calorific-value basis next to it).
+        Fuel power input, > 0 [kW] (state the calorific-value basis next to it).
     electrical_kw : float
-        Electrical output [kW].
+        Electrical output, >= 0 [kW].
     heat_kw : range or sequence
-        Useful heat outputs [kW], summed; blank cells are skipped.
+        Useful heat outputs, each >= 0 [kW], summed; blank cells are skipped.
     output : str
         ``"total"`` (electrical + thermal), ``"electrical"``, ``"thermal"``
         or ``"unaccounted"`` (1 − total: losses to radiation, the stack and
@@ -109,10 +121,24 @@ def chp_balance(fuel_power_kw: float, electrical_kw: float, heat_kw, output: str
     float
         The chosen fraction of the fuel power [-].
 
+    Raises
+    ------
+    CellTypeError
+        Unknown output word.
+    CellInputError
+        fuel_power_kw not above 0; a negative electrical or heat output.
+
     Notes
     -----
-    On the net calorific value a condensing plant can exceed a total of 1;
-    the unaccounted part is then negative.
+    Fractions of the fuel power (first-law balance): η_el = P_el/P_fuel,
+    η_th = ΣQ/P_fuel, total = η_el + η_th, unaccounted = 1 − total.  No upper
+    limit is checked: on the net calorific value a condensing plant can exceed
+    a total of 1; the unaccounted part is then negative.
+
+    References
+    ----------
+    .. [1] Directive 2012/27/EU on energy efficiency, Annex II (a)-(b): electrical
+       and heat efficiency as yearly output over the fuel input (from memory).
     """
     if not isinstance(output, str) or output.strip().lower() not in BALANCE_OUTPUTS:
         raise CellTypeError(f"output: {output!r} is not one of " +

@@ -106,6 +106,10 @@ def liquid_limits(glycol_fraction: float = 0.0, glycol: str = "ethylene") -> tup
     tuple
         ``(t_min, t_max, label, reason_max)``: bounds [°C], a label for the
         fluid and the reason for the upper bound, for error messages.
+
+    References
+    ----------
+    See :func:`hw_cp`.
     """
     fluid, x = _check_glycol(glycol_fraction, glycol)
     if fluid is None:
@@ -213,7 +217,12 @@ def hw_density(t: float, glycol_fraction: float = 0.0, glycol: str = "ethylene")
 
 def enthalpy(t: float, glycol_fraction: float = 0.0, glycol: str = "ethylene",
              name: str = "t", where: str = "") -> float:
-    """Specific enthalpy at 3 bar(a) [kJ/kg] (CoolProp's reference state), checked."""
+    """Specific enthalpy at 3 bar(a) [kJ/kg] (CoolProp's reference state), checked.
+
+    References
+    ----------
+    See :func:`hw_cp`.
+    """
     fluid, x = _fluid(glycol_fraction, glycol)
     t = _check_t(name, t, glycol_fraction, glycol, where)
     return _props(t, fluid, x)[0] / 1000.0
@@ -234,6 +243,10 @@ def temperature_from_enthalpy(h: float, t_guess: float, glycol_fraction: float =
     -------
     float
         Temperature [°C] with ``|h(t) − h| < 1e-9 kJ/kg``.
+
+    References
+    ----------
+    See :func:`hw_cp`.
     """
     fluid, x = _fluid(glycol_fraction, glycol)
     lo, hi, _, _ = liquid_limits(glycol_fraction, glycol)
@@ -256,6 +269,10 @@ def enthalpy_bounds(glycol_fraction: float = 0.0, glycol: str = "ethylene") -> t
     tuple
         ``(t_lo, t_hi, h_lo, h_hi, cp_lo, cp_hi, label, why_hi)`` with
         temperatures [°C], enthalpies [kJ/kg], cp [kJ/(kg·K)].
+
+    References
+    ----------
+    See :func:`hw_cp`.
     """
     fluid, x = _fluid(glycol_fraction, glycol)
     lo, hi, label, why = liquid_limits(glycol_fraction, glycol)
@@ -266,7 +283,12 @@ def enthalpy_bounds(glycol_fraction: float = 0.0, glycol: str = "ethylene") -> t
 
 def mass_flow(flow_m3h: float, t_in: float, glycol_fraction: float = 0.0,
               glycol: str = "ethylene", t_name: str = "t_in") -> float:
-    """Mass flow [kg/s] of a volume flow [m³/h] measured at t_in [°C]."""
+    """Mass flow [kg/s] of a volume flow [m³/h] measured at t_in [°C].
+
+    References
+    ----------
+    See :func:`hw_cp` (density).
+    """
     check_range("flow_m3h", flow_m3h, 0.0, None, "m³/h", lo_open=True)
     fluid, x = _fluid(glycol_fraction, glycol)
     t_in = _check_t(t_name, t_in, glycol_fraction, glycol)
