@@ -1,4 +1,4 @@
-"""The cell boundary rules shared by both adapters (issue 2 §3); checked on real catalogue entries.
+"""The cell boundary rules shared by both adapters (the project's cell-input rules); checked on real catalogue entries.
 
 Expected values: ht.LMTD (reference library) for the HX_LMTD calls; the rest are the rules themselves.
 """
