@@ -404,11 +404,11 @@ def recalc(path: str, sets: dict | None = None):
     return res, info["package"]
 
 
-def write_with_cached_values(res: Recalc, pkg: Package, out_path: str) -> None:
+def write_with_cached_values(res: Recalc, pkg: Package, out_path: str, compress: bool = True) -> None:
     """Store the computed values in the package and write it atomically."""
     pkg.set_cached(res.values)
     pkg.keep_cached_on_open()
-    pkg.save(out_path)
+    pkg.save(out_path, compress=compress)
 
 
 def key_text(sheet: str, ref: str) -> str:

@@ -247,15 +247,20 @@ class Package:
             self.parts[path] = _F_RE.sub(sub, xml).encode("utf-8")
 
     # -- output ----------------------------------------------------------------------
-    def save(self, out_path: str):
-        """Write the package atomically (temporary file in the same folder, then rename)."""
+    def save(self, out_path: str, compress: bool = True):
+        """Write the package atomically (temporary file in the same folder, then rename).
+
+        ``compress=False`` stores the parts uncompressed (the committed demo workbooks: their XML
+        stays readable text in the repository).
+        """
+        method = zipfile.ZIP_DEFLATED if compress else zipfile.ZIP_STORED
         folder = os.path.dirname(os.path.abspath(out_path)) or "."
         fd, tmp = tempfile.mkstemp(prefix=".cellfuncs-", suffix=".xlsx", dir=folder)
         try:
-            with os.fdopen(fd, "wb") as fh, zipfile.ZipFile(fh, "w", zipfile.ZIP_DEFLATED) as zf:
+            with os.fdopen(fd, "wb") as fh, zipfile.ZipFile(fh, "w", method) as zf:
                 for info in self.infos:
                     zi = zipfile.ZipInfo(info.filename, date_time=info.date_time)
-                    zi.compress_type = zipfile.ZIP_DEFLATED
+                    zi.compress_type = method
                     zi.external_attr = info.external_attr
                     zf.writestr(zi, self.parts[info.filename])
             os.chmod(tmp, 0o666 & ~_umask())

@@ -29,7 +29,8 @@ def build_one(module_name: str, out_dir: str):
     try:
         mod.build(raw)
         res, pkg = headless.recalc(raw)
-        headless.write_with_cached_values(res, pkg, final)
+        # stored uncompressed: the committed demo workbooks stay readable text in the repository
+        headless.write_with_cached_values(res, pkg, final, compress=False)
     finally:
         os.unlink(raw)
     named = named_values(final, res)
