@@ -107,9 +107,14 @@ def _items(comp) -> tuple:
     return ids, tuple(float(pairs[c]) for c in ids)
 
 
+#: amounts below this mole fraction (0.1 ppm, far below what a gas analysis reports) count as
+#: absent: a vanishing trace must not switch the partial-mixture split to another plan
+TRACE = 1e-7
+
+
 def _dry_o2_free(ids: tuple, x: tuple) -> dict:
-    """{id: vol-%} of the gas without H2O and O2, renormalised to 100."""
-    kept = {c: v for c, v in zip(ids, x) if c not in REMOVED and v > 0}
+    """{id: vol-%} of the gas without H2O and O2 and without sub-ppm traces, renormalised to 100."""
+    kept = {c: v for c, v in zip(ids, x) if c not in REMOVED and v > TRACE}
     tot = math.fsum(kept.values())
     if tot <= 0:
         raise CellInputError("components: nothing is left once water and oxygen are removed "

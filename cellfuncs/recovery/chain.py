@@ -33,9 +33,10 @@ __all__ = [
     "cell_chain_check",
 ]
 
-#: arrangement words, one vocabulary with the heat-exchanger family
-ARRANGEMENTS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
-                "cross-cmin-mixed", "cross-cmax-mixed")
+#: arrangement words: one vocabulary with the heat-exchanger family
+from cellfuncs.heat_transfer.arrangements import ARRANGEMENTS  # noqa: E402
+from cellfuncs.heat_transfer.arrangements import parse as _parse_arrangement  # noqa: E402
+
 OUTPUTS_RATE = ("t_out", "duty", "t_hot_out")
 
 
@@ -53,10 +54,7 @@ def _epsilon(ntu, c_ratio, arrangement):
 
 
 def _check_arrangement(arrangement: str) -> str:
-    if not isinstance(arrangement, str) or arrangement.strip().lower() not in ARRANGEMENTS:
-        raise CellTypeError(
-            f"arrangement: {arrangement!r} is not one of " + ", ".join(f'"{a}"' for a in ARRANGEMENTS))
-    return arrangement.strip().lower()
+    return _parse_arrangement(arrangement)
 
 
 def rate_stage(t_cold_in: float, c_cold: float, t_hot_in: float, c_hot: float, ua: float,
