@@ -149,6 +149,8 @@ def test_external_links_become_errors(tmp_path):
     ws = wb.active
     ws["A1"] = "=[other.xlsx]Sheet1!A1+1"
     ws["A2"] = "=2+2"
+    ws["A3"] = "='C:\\data\\[other.xlsx]Sheet1'!A1+1"
+    ws["A4"] = "=INDIRECT(\"'/srv/[other.xlsx]Inputs'!B7\")"
     path = tmp_path / "links.xlsx"
     wb.save(path)
     p = _run("recalc", str(path), "-o", str(tmp_path / "o.xlsx"), "--json")
@@ -156,6 +158,8 @@ def test_external_links_become_errors(tmp_path):
     got = json.loads(p.stdout)
     assert got["Sheet!A1"] == "#REF!"
     assert got["Sheet!A2"] == 4
+    assert got["Sheet!A3"] == "#REF!"
+    assert got["Sheet!A4"] in ("#REF!", "#NAME?")  # an error, never the 0 of an unread link
 
 
 def test_more_unusable_input_exits_2(book, tmp_path):
