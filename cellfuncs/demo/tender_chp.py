@@ -177,6 +177,41 @@ def build(path: str) -> None:
     h.calc("Exhaust exchanger area (gas side)", "=HX_AREA(q_exh,u_exh,t_exh,t_stack,ex_w_in,ex_w_out,exh_arr)",
            "m²", name="out_area_exh", result=True, fmt="0.0")
 
+    h.calc("Plate exchanger UA", '=HX_UA(q_jw,t_jw_in,t_jw_out,jw_w_in,jw_w_out,"counter")', "kW/K",
+           name="jw_ua", fmt="0.00")
+
+    rt = b.sheet("Rated order", "The sized exchangers rated in both orders (HW_CHAIN_RATE)")
+    rt.note("Jacket-water plate exchanger and exhaust exchanger as sized above, on the hot-water flow of "
+            "the chosen order, entering at the return temperature.")
+    rt.note("A stage whose source is colder than the water reaching it gets a negative duty: the water "
+            "would heat the source.")
+    first = rt.table_row("stage", ["jacket water", "exhaust"])
+    rt.table_row("hot inlet [°C]", ["=t_jw_in", "=t_exh"], "°C", "0.0")
+    rt.table_row("hot capacity rate [kW/K]", ["=q_jw/(t_jw_in-t_jw_out)", "=c_exh"], "kW/K", "0.000")
+    rt.table_row("UA [kW/K]", ["=jw_ua", "=ex_ua"], "kW/K", "0.00")
+    rt.table_row("stage (other order)", ["exhaust", "jacket water"])
+    rt.table_row("hot inlet [°C]", ["=t_exh", "=t_jw_in"], "°C", "0.0")
+    rt.table_row("hot capacity rate [kW/K]", ["=c_exh", "=q_jw/(t_jw_in-t_jw_out)"], "kW/K", "0.000")
+    rt.table_row("UA [kW/K]", ["=ex_ua", "=jw_ua"], "kW/K", "0.00")
+
+    def rng(r):
+        return f"$B${r}:$C${r}"
+
+    a_t, a_c, a_ua = rng(first + 1), rng(first + 2), rng(first + 3)
+    b_t, b_c, b_ua = rng(first + 5), rng(first + 6), rng(first + 7)
+    rt.heading("Jacket water first, then exhaust")
+    rt.array("duty per stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{a_t},{a_c},{a_ua},"counter","duty")', 2,
+             "kW", fmt="0.0")
+    rt.array("water after each stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{a_t},{a_c},{a_ua},"counter","t_out")',
+             2, "°C", fmt="0.0")
+    rt.heading("Exhaust first, then jacket water")
+    rt.array("duty per stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{b_t},{b_c},{b_ua},"counter","duty")', 2,
+             "kW", fmt="0.0")
+    rt.array("water after each stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{b_t},{b_c},{b_ua},"counter","t_out")',
+             2, "°C", fmt="0.0")
+    rt.note("In the second order the exhaust heats the water first; the jacket-water exchanger then sees "
+            "hotter water and recovers less (or, past the jacket temperature, would heat the engine).")
+
     p = b.sheet("Balance", "Plant balance")
     p.table_row("heat recovered [kW]", ["=q_oil", "=q_ht", "=q_jw", "=q_exh"], "kW", "0.0")
     heat = f"'Balance'!$B${p.row - 1}:$E${p.row - 1}"
