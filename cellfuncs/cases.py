@@ -49,6 +49,10 @@ class CaseRunner:
                                 "list outputs with --outputs")
         self.inputs, self.outputs = list(inputs), list(outputs)
         self.input_cells = [self._where(t, names, sheets, "input column") for t in self.inputs]
+        formula_at = {(c[0], c[1]) for c in info["cells"]}
+        for t, cell in zip(self.inputs, self.input_cells):
+            if cell in formula_at:
+                raise BookError(f"input column {t!r}: {cell[0]}!{cell[1]} holds a formula, not an input")
         self.output_cells = [self._where(t, names, sheets, "output") for t in self.outputs]
         self.numeric_inputs = self._numeric(book, self.input_cells)
 

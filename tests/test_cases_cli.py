@@ -86,7 +86,9 @@ def test_cases_bad_input_exit_2(book, tmp_path):
     _write(extra, [["t_hot_in"], [100, 5]])
     inf = tmp_path / "inf.csv"
     _write(inf, [["t_hot_in"], ["inf"]])
-    for csv_path in (unknown, text, tmp_path / "missing.csv", dup, extra, inf):
+    formula = tmp_path / "formula.csv"
+    _write(formula, [["out_lmtd"], [1]])
+    for csv_path in (unknown, text, tmp_path / "missing.csv", dup, extra, inf, formula):
         p = _run("cases", str(book), str(csv_path), "-o", str(out))
         assert p.returncode == 2, p.stderr
         assert len(p.stderr.strip().splitlines()) == 1
