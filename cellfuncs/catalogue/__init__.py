@@ -24,10 +24,16 @@ _CACHE: dict = {}
 def entries() -> tuple:
     """All catalogue entries, in family order (cached)."""
     if "all" not in _CACHE:
+        from dataclasses import replace
+
+        from cellfuncs.catalogue.examples import EXAMPLES
+
         out = []
         for fam in FAMILIES:
             mod = importlib.import_module(f"cellfuncs.catalogue.{fam}")
-            out.extend(mod.ENTRIES)
+            # entries that give no example inline take the one in catalogue/examples.py
+            out.extend(replace(e, example=EXAMPLES[e.name]) if not e.example and e.name in EXAMPLES else e
+                       for e in mod.ENTRIES)
         names = [e.name.upper() for e in out]
         dupes = {n for n in names if names.count(n) > 1}
         if dupes:

@@ -28,15 +28,3 @@ ENTRIES: list = [
         returns="version text [-]",
     ),
 ]
-
-
-def _with_examples(entries):
-    from dataclasses import replace
-
-    from cellfuncs.catalogue.examples import EXAMPLES
-
-    return [replace(e, example=EXAMPLES[e.name]) if not e.example and e.name in EXAMPLES else e
-            for e in entries]
-
-
-ENTRIES = _with_examples(ENTRIES)

@@ -11,12 +11,11 @@ and rates the chosen plate exchanger at part load.
 from __future__ import annotations
 
 from cellfuncs.demo.book import DemoBook
+from cellfuncs.heat_transfer.arrangements import ARRANGEMENTS
 
 FILENAME = "hx_sizing.xlsx"
 EXPECTED_ERRORS: set = set()
 
-ARRANGEMENTS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross", "cross-cmin-mixed",
-                "cross-cmax-mixed")
 
 
 def build(path: str) -> None:

@@ -12,6 +12,7 @@ sources in another order to show what the order does.
 from __future__ import annotations
 
 from cellfuncs.demo.book import DemoBook
+from cellfuncs.heat_transfer.arrangements import ARRANGEMENTS
 
 FILENAME = "tender_chp.xlsx"
 EXPECTED_ERRORS: set = set()
@@ -21,8 +22,6 @@ GAS = [("methane", 91.4), ("ethane", 4.9), ("propane", 1.1), ("n-butane", 0.25),
 SOURCES = ("oil cooler", "HT charge-air stage", "jacket water", "exhaust")
 ORDER_A = ("oil cooler", "jacket water", "HT charge-air stage", "exhaust")
 ORDER_B = ("exhaust", "jacket water", "HT charge-air stage", "oil cooler")
-ARRANGEMENTS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross", "cross-cmin-mixed",
-                "cross-cmax-mixed")
 AMB = "t_amb,rh_amb,p_amb"
 MIX = "lambda_air,gas_names,gas_amounts," + AMB
 
