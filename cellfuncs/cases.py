@@ -40,10 +40,10 @@ class CaseRunner:
         self.book = book
         model, info = headless.load_model(book)
         shutil.rmtree(info["tmpdir"], ignore_errors=True)
-        names, sheets = info["names"], info["sheets"]
+        names, sheets, wb = info["names"], info["sheets"], info["workbook"]
         if outputs is None:
-            outputs = sorted((n for n in names if n.lower().startswith("out_")), key=str.lower)
-            outputs = [self._spelled(book, n) for n in outputs]
+            spelled = {n.upper(): n for n in wb.defined_names}  # names as the workbook writes them
+            outputs = sorted((spelled.get(n, n) for n in names if n.lower().startswith("out_")), key=str.lower)
             if not outputs:
                 raise BookError(f"{os.path.basename(book)}: no defined names starting with out_; "
                                 "list outputs with --outputs")
@@ -54,7 +54,8 @@ class CaseRunner:
             if cell in formula_at:
                 raise BookError(f"input column {t!r}: {cell[0]}!{cell[1]} holds a formula, not an input")
         self.output_cells = [self._where(t, names, sheets, "output") for t in self.outputs]
-        self.numeric_inputs = self._numeric(book, self.input_cells)
+        self.numeric_inputs = [isinstance(v, (int, float)) and not isinstance(v, bool)
+                               for v in (wb[sh][ref].value for sh, ref in self.input_cells)]
 
         def key(cell):
             return f"'[book.xlsx]{cell[0].upper()}'!{cell[1]}"
@@ -64,16 +65,6 @@ class CaseRunner:
                                     outputs=[key(c) for c in self.output_cells])
 
     @staticmethod
-    def _spelled(book, upper_name):
-        import openpyxl
-
-        wb = openpyxl.load_workbook(book, read_only=False)
-        for n in wb.defined_names:
-            if n.upper() == upper_name:
-                return n
-        return upper_name
-
-    @staticmethod
     def _where(target, names, sheets, what):
         from cellfuncs import headless
 
@@ -81,17 +72,6 @@ class CaseRunner:
         if where is None:
             raise BookError(f"{what} {target!r}: no such cell or defined name in the workbook")
         return where
-
-    @staticmethod
-    def _numeric(book, cells):
-        import openpyxl
-
-        wb = openpyxl.load_workbook(book)
-        out = []
-        for sheet, ref in cells:
-            v = wb[sheet][ref].value
-            out.append(isinstance(v, (int, float)) and not isinstance(v, bool))
-        return out
 
     def parse_row(self, row: dict, line: int) -> list:
         """A CSV row -> input values: numbers where the text is one, else text.

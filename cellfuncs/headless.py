@@ -192,7 +192,7 @@ class Recalc:
 
 
 def _formula_cells(path: str):
-    """Formula cells by sheet and the array-formula ranges, read with openpyxl."""
+    """Formula cells (array ranges cell by cell), defined names and the openpyxl workbook."""
     import openpyxl
     from openpyxl.worksheet.formula import ArrayFormula
 
@@ -220,7 +220,7 @@ def _formula_cells(path: str):
             continue
         if len(dests) == 1:
             names[name.upper()] = (dests[0][0], dests[0][1].replace("$", ""))
-    return cells, names, wb.sheetnames
+    return cells, names, wb
 
 
 def _range_bounds(ref: str):
@@ -278,7 +278,8 @@ def load_model(path: str, sets: dict | None = None):
     """
     register()
     pkg = Package(path)
-    cells, names, sheets = _formula_cells(path)
+    cells, names, wb = _formula_cells(path)
+    sheets = wb.sheetnames
     resolved = {}
     formula_at = {(c[0], c[1]) for c in cells}
     for target, value in (sets or {}).items():
@@ -333,7 +334,7 @@ def load_model(path: str, sets: dict | None = None):
         raise BookError(f"{path}: the formula engine cannot load it ({type(exc).__name__})") from None
     finally:
         pkg.parts = out_parts  # the output keeps the original formulas
-    info = {"cells": cells, "names": names, "sheets": sheets, "package": pkg, "tmpdir": tmpdir,
+    info = {"cells": cells, "names": names, "sheets": sheets, "workbook": wb, "package": pkg, "tmpdir": tmpdir,
             "calc_name": "BOOK.XLSX"}
     return model, info
 
