@@ -9,12 +9,12 @@ from cellfuncs.catalogue.gas import _COMPONENTS, _FRACTIONS  # noqa: E402
 
 _METHOD = Arg(
     "method",
-    '"en16726": EN 16726:2015 Annex A (dry, O2-free; C5 and C6+ at most 3 vol-% each, 5 % '
-    'together); "linear": Kubesh, King & Liss 1992, pipeline natural gas only (no H2, '
-    "CO, H2S; CH4 >= 70 %; 104.7 for pure methane)",
-    kind="option", default="en16726", options=("en16726", "linear"),
+    '"en16726": EN 16726 Annex A; "linear", "hc_ratio": Kubesh, King & Liss 1992 '
+    "(pipeline gas), MN from MON by the paper or by ISO 15403-1 (_iso15403)",
+    kind="option", default="en16726",
+    options=("en16726", "linear", "linear_iso15403", "hc_ratio", "hc_ratio_iso15403"),
     aliases={"en16726:2015": "en16726", "annexa": "en16726", "kubesh": "linear",
-             "sae922359": "linear"},
+             "sae922359": "linear", "hc": "hc_ratio"},
 )
 
 _EXAMPLE = ([["methane", 90.0], ["ethane", 6.0], ["propane", 2.0], ["n-butane", 0.5],
@@ -28,8 +28,8 @@ ENTRIES = [
         target="cellfuncs.gas.methane_number:cell_methane_number",
         category=CATEGORY,
         description="Methane number (knock resistance) of a gas by EN 16726:2015 Annex A "
-                    "(partial mixtures) or the linear Kubesh, King & Liss (1992) correlation; "
-                    "error outside the method's limits." + _NOTE,
+                    "(partial mixtures) or the Kubesh, King & Liss (1992) linear or H/C "
+                    "correlations; error outside a method's limits." + _NOTE,
         args=(_COMPONENTS, _FRACTIONS, _METHOD),
         returns="methane number [-]",
         example=_EXAMPLE,
@@ -46,3 +46,22 @@ ENTRIES = [
         example=_EXAMPLE,
     ),
 ]
+
+
+# ---- the spread between methods (cellfuncs.gas.mn_correlations) ----
+from cellfuncs.catalogue.emissions import AMOUNTS as _AMOUNTS  # noqa: E402
+
+ENTRIES.append(CellFunction(
+    name="GAS_METHANE_NUMBER_SPREAD",
+    target="cellfuncs.gas.mn_correlations:cell_methane_number_spread",
+    category=CATEGORY,
+    description="Highest minus lowest methane number over the methods valid for the gas (EN 16726 "
+                "Annex A; Kubesh, King & Liss 1992 linear and H/C MON, each with the paper's and "
+                "ISO 15403-1's MON-to-MN); error if fewer than two apply.",
+    args=(_COMPONENTS, _AMOUNTS,
+          Arg("result", '"spread" (highest - lowest), "lowest", "highest", "count" (methods that '
+              'apply) or "methods" (text: each method\'s MN)', kind="option", default="spread",
+              options=("spread", "lowest", "highest", "count", "methods"))),
+    returns="methane-number spread [-]",
+    example=(_EXAMPLE[0], None, "spread"),
+))

@@ -48,9 +48,9 @@ __all__ = [
     "METHODS",
 ]
 
-METHODS = ("en16726", "linear")
+METHODS = ("en16726", "linear", "linear_iso15403", "hc_ratio", "hc_ratio_iso15403")
 _METHOD_ALIASES = {"en16726:2015": "en16726", "en16726annexa": "en16726", "annexa": "en16726",
-                   "kubesh": "linear", "sae922359": "linear"}
+                   "kubesh": "linear", "sae922359": "linear", "hc": "hc_ratio"}
 
 KNOWN_IDS = ("CH4", "C2H6", "C3H8", "nC4H10", "iC4H10", "nC5H12", "iC5H12", "neoC5H12",
              "nC6H14", "nC7H16", "nC8H18", "H2", "CO", "H2S", "NH3", "H2O", "He", "Ar",
@@ -414,7 +414,7 @@ def _method(method) -> str:
     key = "".join(str(method).lower().split())
     key = _METHOD_ALIASES.get(key, key)
     if key not in METHODS:
-        raise CellInputError(f'method: "{method}" is not one of "en16726", "linear"')
+        raise CellInputError(f'method: "{method}" is not one of ' + ", ".join(f'"{m}"' for m in METHODS))
     return key
 
 
@@ -459,6 +459,10 @@ def methane_number(comp, method: str = "en16726") -> float:
        on octane number of natural gas fuels. SAE Technical Paper 922359.
     """
     m = _method(method)
+    if m not in ("en16726", "linear"):  # the other correlations (cellfuncs.gas.mn_correlations)
+        from cellfuncs.gas import mn_correlations
+
+        return mn_correlations.methane_number_by(comp, m)
     return methane_number_en16726(comp) if m == "en16726" else methane_number_linear(comp)
 
 
@@ -501,6 +505,10 @@ def basis_text(comp, method: str = "en16726") -> str:
        on octane number of natural gas fuels. SAE Technical Paper 922359.
     """
     m = _method(method)
+    if m not in ("en16726", "linear"):
+        from cellfuncs.gas import mn_correlations
+
+        return mn_correlations.basis(comp, m)
     if m == "linear":
         v = methane_number_linear(comp)
         return (f"linear MON correlation (Kubesh, King & Liss 1992), MN {v:.1f}; pipeline-type "

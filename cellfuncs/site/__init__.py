@@ -1,0 +1,1 @@
+"""Site conditions and an engine's declared tables: standard-atmosphere pressure, table interpolation."""
