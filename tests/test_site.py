@@ -113,7 +113,7 @@ def test_table_interp_refuses_extrapolation_naming_range(x):
     (col([0.0]), col([1.0]), CellInputError, r"x_values: 1 value; a table needs at least two"),
     (((0.0, 1.0), (2.0, 3.0)), col([1.0, 2.0]), CellInputError, r"x_values: a range of 2 rows and 2"),
     (col([None, None]), col([1.0]), CellInputError, r"x_values: the range holds only blanks"),
-    (col([0.0, 1.0]), ((1.0,), (None,)), CellInputError, r"y_values: 1 values beside 2"),
+    (col([0.0, 1.0]), ((1.0,), (None,)), CellInputError, r"y_values: 1 value beside 2"),
 ])
 def test_table_interp_refusals(xs, ys, err, msg):
     with pytest.raises(err, match=msg):
@@ -218,7 +218,7 @@ def test_table_interp2_spare_rows_and_columns():
 
 
 @pytest.mark.parametrize("x, y, xs, ys, z, msg", [
-    (5.0, 30.0, col([0.0, 10.0]), ((25.0, 35.0),), ((1.0, 2.0),), r"table: 1 rows, x_values has 2"),
+    (5.0, 30.0, col([0.0, 10.0]), ((25.0, 35.0),), ((1.0, 2.0),), r"table: 1 row\(s\), x_values has 2"),
     (5.0, 30.0, col([0.0, 10.0]), ((25.0, 35.0),), ((1.0, 2.0), (3.0, None)),
      r"table: row 2, column 2 is blank"),
     (5.0, 30.0, col([0.0, 10.0]), ((25.0, 35.0),), ((1.0, 2.0, 9.0), (3.0, 4.0, None)),

@@ -188,8 +188,8 @@ def table_interp(x: float, x_values, y_values) -> float:
     xs = axis_values("x_values", x_values)
     ys = axis_values("y_values", y_values, monotonic=False)
     if len(ys) != len(xs):
-        raise CellInputError(f"y_values: {len(ys)} values beside {len(xs)} x_values (trailing "
-                             "blanks ignored); give one y per x")
+        raise CellInputError(f"y_values: {len(ys)} value{'s' if len(ys) != 1 else ''} beside "
+                             f"{len(xs)} x_values (trailing blanks ignored); give one y per x")
     i, t = _locate("x", xv, "x_values", xs)
     return _finite(_lerp(ys[i], ys[i + 1], t), "y_values")
 
@@ -216,7 +216,7 @@ def _grid(xs: tuple, ys: tuple, table) -> tuple:
             vals.append(_number("table", f"row {r}, column {c_i}", c))
         out.append(tuple(vals))
     if len(out) < n:
-        raise CellInputError(f"table: {len(out)} rows, x_values has {n} values; give one table "
+        raise CellInputError(f"table: {len(out)} row(s), x_values has {n} values; give one table "
                              "row per x value")
     return tuple(out)
 
