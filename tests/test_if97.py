@@ -11,8 +11,8 @@ Outside sources:
 Consistency of IF97 with IAPWS-95 (from memory of Wagner et al. 2000, J. Eng. Gas Turbines
 Power 122, 150-182, the tolerances set for the development of the basic equations, to which the
 release's Section 2 refers): regions 1 and 2 Δv/v 0.05 %, Δcp/cp 1 %; region 1 Δh 0.2 kJ/kg
-(measured: up to 0.07 kJ/kg at 3 bar, 0.24 kJ/kg at 10 MPa near saturation); saturation pressure Δp_s/p_s 0.025 % (the same figure
-cellfuncs.chargeair.humid states).  Issue 9 sets a tighter bound for hot water at 3 bar: the
+(measured: up to 0.07 kJ/kg at 3 bar, 0.24 kJ/kg at 10 MPa near saturation); saturation
+pressure Δp_s/p_s 0.025 % (the same figure cellfuncs.chargeair.humid states).  Issue 9 sets a tighter bound for hot water at 3 bar: the
 hot-water results may move by at most 0.1 % from the IAPWS-95 values they had.
 """
 
