@@ -179,6 +179,10 @@ def test_other_refusals():
         exhaust_steam(10000.0, 450.0, 1.8, GAS, 10.0, 80.0, 10.0, "steam", -1.0)
     with pytest.raises(CellInputError, match="^t_feedwater: .*temperature cross"):
         exhaust_steam(10000.0, 700.0, 1.0, METHANE, 1.0, 20.0, 1.0)
+    # 98 bar(a), pinch 0.5 K, approach 0.1 K: both economiser ends are clear, but water cp rises
+    # towards saturation at this pressure and the profiles cross inside (about 273 °C)
+    with pytest.raises(CellInputError, match="^t_feedwater: the gas .* inside the economiser"):
+        exhaust_steam(1000.0, 550.0, 1.1, METHANE, 98.0, 95.0, 0.5, "steam", 0.1)
     with pytest.raises(CellTypeError, match="^result: "):
         exhaust_steam(10000.0, 450.0, 1.8, GAS, 10.0, 80.0, 10.0, "power")
     with pytest.raises(CellTypeError):

@@ -69,6 +69,31 @@ def _result(result) -> str:
     return r.strip().lower()
 
 
+#: points inside the economiser checked for a temperature cross
+_ECO_POINTS = 20
+
+
+def _check_economiser(poly, p: float, h_fw: float, h_eco: float, h_stack: float, h_gas_ev: float,
+                      t_fw: float) -> None:
+    """Raise if the gas is not hotter than the water at points inside the (counterflow) economiser.
+
+    Water at enthalpy ``h_fw + f·(h_eco − h_fw)`` meets gas at ``h_stack + f·(h_gas_ev −
+    h_stack)`` (both linear in the heat exchanged); the water temperature comes from the
+    region-1 backward equation T(p, h) (within 25 mK of the forward equation).
+    """
+    from cellfuncs.props import if97
+
+    mm = poly.molar_mass
+    for k in range(1, _ECO_POINTS):
+        f = k / _ECO_POINTS
+        t_w = if97.t_ph_region1(p, h_fw + f * (h_eco - h_fw)) - _T0
+        t_g = poly.t_from_h((h_stack + f * (h_gas_ev - h_stack)) * mm, guess=t_w + _T0 + 10.0) - _T0
+        if t_g <= t_w:
+            raise CellInputError(f"t_feedwater: the gas ({fmt(round(t_g, 2))} °C) is not hotter than the "
+                                 f"water ({fmt(round(t_w, 2))} °C) inside the economiser (temperature "
+                                 f"cross); raise t_feedwater or pinch_k")
+
+
 def steam_balance(exhaust_flow_kg_h: float, t_exhaust_in: float, air_ratio: float, comp,
                   p_steam_bar: float, t_feedwater: float, pinch_k: float = 10.0,
                   approach_k: float = 0.0) -> dict:
@@ -108,7 +133,8 @@ def steam_balance(exhaust_flow_kg_h: float, t_exhaust_in: float, air_ratio: floa
     CellInputError
         A value out of range; feedwater above saturation less the approach;
         exhaust not hotter than saturation plus the pinch; a temperature cross
-        at the economiser's cold end; a stack below the water dew point.
+        at the economiser's cold end or at one of 19 points inside it; a stack
+        below the water dew point.
 
     Notes
     -----
@@ -171,6 +197,8 @@ def steam_balance(exhaust_flow_kg_h: float, t_exhaust_in: float, air_ratio: floa
                              f"{fmt(t_fw)} °C (temperature cross at its cold end); raise t_feedwater "
                              "or pinch_k")
     t_stack = poly.t_from_h(h_stack * mm, guess=t_ev + _T0, tol=1e-10) - _T0
+    if q_ec > 0:
+        _check_economiser(poly, p, h_fw, h_eco, h_stack, h_gas_ev, t_fw)
     t_dew = exhaust.exhaust_dewpoint(lam, comp) if y_h2o > 0 else None
     if t_dew is not None and t_stack < t_dew:
         raise CellInputError(f"t_feedwater: the stack temperature {fmt(round(t_stack, 2))} °C is below the "
