@@ -22,7 +22,7 @@ ARRANGEMENT_WORDS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
                      "cross-cmin-mixed", "cross-cmax-mixed")
 ARRANGEMENT_ALIASES = {"counterflow": "counter", "parallelflow": "parallel"}
 
-_PROPS = ("Water: IAPWS-95 at 3 bar(a) (liquid 0 to 133.52 °C); water-glycol: CoolProp "
+_PROPS = ("Water: IAPWS-IF97 at 3 bar(a) (liquid 0 to 133.52 °C); water-glycol: CoolProp "
           "INCOMP::MEG/MPG (Melinder 2010), mass fraction 0-0.6, freezing point to 100 °C")
 
 
