@@ -73,10 +73,14 @@ def _wrapped(ws, row, col, text, width=None):
     c = ws.cell(row, col, text)
     c.alignment = Alignment(wrap_text=True, vertical="top")
     width = width or ws.column_dimensions[get_column_letter(col)].width or 9
-    lines = -(-len(str(text)) // max(int(width * 1.15), 1))
+    lines = -(-len(str(text)) // max(int(width * 1.25), 1))
     if lines > 1:
         rd = ws.row_dimensions[row]
         rd.height = max(rd.height or 15, 15 * lines)
+        for left in range(1, col):  # the row's label, value and unit at the top, beside the first line
+            cell = ws.cell(row, left)
+            if cell.value is not None:
+                cell.alignment = Alignment(vertical="top", wrap_text=cell.alignment.wrap_text)
     return c
 
 

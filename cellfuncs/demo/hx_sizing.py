@@ -73,7 +73,8 @@ def build(path: str) -> None:
     c.calc("Exhaust capacity rate", "=exhaust_flow_kg_h*exh_cp/3600", "kW/K", name="exh_c")
     c.calc("Exhaust heat to the stack temperature", "=exh_c*(exh_in-exh_out)", "kW", name="out_exh_duty",
            result=True)
-    c.calc("Client water into the exhaust exchanger (after the plate exchanger)", "=hw_out", "°C", name="exh_w_in")
+    c.calc("Client water into the exhaust exchanger", "=hw_out", "°C", "after the plate exchanger",
+           name="exh_w_in")
     c.calc("Client water out of the exhaust exchanger", "=exh_w_in+out_exh_duty/phx_c_cold", "°C",
            name="out_exh_w_out", result=True)
     c.calc("Capacity-rate ratio Cmin/Cmax", "=MIN(exh_c,phx_c_cold)/MAX(exh_c,phx_c_cold)", "-",
