@@ -90,10 +90,17 @@ def book_info(path: str) -> BookInfo:
         ws, ws_v = wb[sheet], cached[sheet]
         where = f"{_quote_sheet(sheet)}!{ref}"
         if ":" in ref:
-            c0, r0, c1, r1 = range_boundaries(ref)
-            ranges.append(NamedCell(name, where, f"{r1 - r0 + 1} x {c1 - c0 + 1}", "", ""))
+            try:
+                c0, r0, c1, r1 = range_boundaries(ref)
+                shape = f"{r1 - r0 + 1} x {c1 - c0 + 1}"
+            except (TypeError, ValueError):  # whole rows or columns ("A:A")
+                shape = "whole rows or columns"
+            ranges.append(NamedCell(name, where, shape, "", ""))
             continue
-        cell = ws[ref]
+        try:
+            cell = ws[ref]
+        except (ValueError, IndexError):  # not a cell reference
+            continue
         unit = ws.cell(cell.row, cell.column + 1).value
         label = ws.cell(cell.row, cell.column - 1).value if cell.column > 1 else None
         is_formula = isinstance(cell.value, str) and cell.value.startswith("=") or cell.data_type == "f"

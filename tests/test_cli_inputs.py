@@ -145,3 +145,27 @@ def test_sample_cases_run(tmp_path):
 def test_sample_cases_refuse_a_book_without_the_roles(small_book):
     with pytest.raises(SystemExit, match="no named input for rh_ambient"):
         _tool().case_rows(str(small_book))
+
+
+def test_inputs_corrupt_book(tmp_path, capsys):
+    bad = tmp_path / "bad.xlsx"
+    bad.write_bytes(b"not a zip")
+    assert main(["inputs", str(bad)]) == 2
+    err = capsys.readouterr().err
+    assert "not a readable .xlsx workbook" in err and err.count("\n") == 1
+
+
+def test_inputs_odd_names(tmp_path, capsys):
+    """Names of whole columns, constants and broken references are shown or skipped, never a traceback."""
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws.title = "S"
+    ws["A1"] = 1
+    for name, ref in (("whole_column", "S!$A:$A"), ("a_constant", "0.5"), ("broken", "#REF!")):
+        wb.defined_names[name] = DefinedName(name, attr_text=ref)
+    path = tmp_path / "odd.xlsx"
+    wb.save(path)
+    assert main(["inputs", str(path), "--json"]) == 0
+    obj = json.loads(capsys.readouterr().out)
+    assert obj["inputs"] == [] and obj["outputs"] == []
+    assert [r["name"] for r in obj["ranges"]] == ["whole_column"]
