@@ -101,8 +101,7 @@ def book_info(path: str) -> BookInfo:
             cell = ws[ref]
         except (ValueError, IndexError):  # not a cell reference
             continue
-        unit = ws.cell(cell.row, cell.column + 1).value
-        label = ws.cell(cell.row, cell.column - 1).value if cell.column > 1 else None
+        unit, label = _unit_beside(ws_v, cell.row, cell.column), _label_beside(ws, cell.row, cell.column)
         is_formula = isinstance(cell.value, str) and cell.value.startswith("=") or cell.data_type == "f"
         if name.lower().startswith("out_"):
             outputs.append(NamedCell(name, where, ws_v[ref].value, _unit(unit), _text(label)))
@@ -111,6 +110,24 @@ def book_info(path: str) -> BookInfo:
         else:
             inputs.append(NamedCell(name, where, cell.value, _unit(unit), _text(label)))
     return BookInfo(os.path.basename(path), inputs, outputs, ranges, other)
+
+
+def _unit_beside(ws_v, row: int, col: int):
+    """The unit: the first text to the right, past the numbers of a table row (as displayed)."""
+    for c in range(col + 1, col + 10):
+        v = ws_v.cell(row, c).value
+        if v is None or isinstance(v, str):
+            return v
+    return None
+
+
+def _label_beside(ws, row: int, col: int):
+    """The label: the nearest text to the left that is not a formula."""
+    for c in range(col - 1, 0, -1):
+        v = ws.cell(row, c).value
+        if isinstance(v, str) and not v.startswith("="):
+            return v
+    return None
 
 
 def _unit(v) -> str:
