@@ -228,3 +228,22 @@ def test_knock_ambient_chart_plots_intake_against_dew_point():
         titles[chart.title.tx.rich.p[0].r[0].t if chart.title else ""] = names
     dew = next(v for k, v in titles.items() if "dew point" in k.lower())
     assert dew[0].startswith("intake") and all(n.startswith("dew point") for n in dew[1:]) and len(dew) == 4
+
+
+def test_gas_units_spell_kind_and_reference_conditions():
+    """Unit cells say which calorific value and reference conditions a figure is on (issue 10)."""
+    values = openpyxl.load_workbook(_committed("gas_quality"), data_only=True)
+    kind, ref = None, None
+    wb = openpyxl.load_workbook(_committed("gas_quality"))
+    for n in ("kind", "ref_conditions", "fuel_ref_conditions"):
+        sheet, cell = next(iter(wb.defined_names[n].destinations))
+        if n == "kind":
+            kind = values[sheet][cell.replace("$", "")].value
+        elif n == "ref_conditions":
+            ref = values[sheet][cell.replace("$", "")].value
+        else:
+            fuel_ref = values[sheet][cell.replace("$", "")].value
+    units = {row[0].value: row[5].value for row in values["Properties"].iter_rows(min_col=1, max_col=6)}
+    assert units["Calorific value (kind chosen), volume"] == f"MJ/m³ ({kind}, {ref})"
+    assert units["Wobbe index (gross)"] == f"MJ/m³ (gross, {ref})"
+    assert units["Fuel flow for the engine's fuel power"] == f"m³/h (net, {fuel_ref})"
