@@ -128,3 +128,14 @@ def test_demo_writes_into_a_new_or_empty_folder(tmp_path, monkeypatch, make):
         target.mkdir()
     assert main(["demo", "-o", str(target)]) == 0
     assert os.listdir(target) == ["tender_chp.xlsx"]
+
+
+@pytest.mark.parametrize("encoding", ["cp1252", "ascii"])
+def test_inputs_on_any_console_encoding(encoding):
+    from pathlib import Path
+
+    book = Path(__file__).resolve().parent.parent / "workbooks_demo" / "knock_whatif.xlsx"
+    p = _run(["inputs", str(book)], encoding)
+    assert p.returncode == 0, p.stderr.decode("utf-8", "replace")
+    text = p.stdout.decode(encoding)
+    assert "air_ratio" in text and "t_ambient" in text
