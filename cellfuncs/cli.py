@@ -1,4 +1,4 @@
-"""The ``cellfuncs`` command: recalc, functions, demo, cases.
+"""The ``cellfuncs`` command: recalc, cases, inputs, functions, demo.
 
 Exit codes: 0 when the job was done (a workbook with error cells still counts
 as computed), 2 with one line on stderr for unusable input.  No command ever
@@ -99,10 +99,56 @@ def cmd_recalc(ns) -> int:
     return 0
 
 
+#: plain stand-ins for characters a non-UTF-8 console may not have; anything else becomes "?"
+_STAND_INS = {"°": "deg", "·": ".", "²": "2", "³": "3", "λ": "lambda", "ε": "eps", "η": "eta",
+              "Δ": "d", "→": "->", "←": "<-", "–": "-", "—": "-", "−": "-", "≈": "~", "×": "x",
+              "≤": "<=", "≥": ">=", "±": "+/-", "µ": "u", "…": "...", "‘": "'", "’": "'", "“": '"',
+              "”": '"'}
+
+
+def _stand_in(exc):
+    if not isinstance(exc, UnicodeEncodeError):  # pragma: no cover - registered for encoding only
+        raise exc
+    text = "".join(_STAND_INS.get(ch, "?") for ch in exc.object[exc.start:exc.end])
+    try:
+        text.encode(exc.encoding)
+    except (UnicodeEncodeError, LookupError):
+        text = "?" * (exc.end - exc.start)
+    return text, exc.end
+
+
+def _printable_output():
+    """Let stdout and stderr show what their encoding cannot (a Windows console, redirected output).
+
+    A console that is not UTF-8 (cp1252, ASCII under LANG=C) cannot encode λ, ε, → (ASCII not even
+    ° or ³); printing them would raise UnicodeEncodeError.  They are written as plain stand-ins
+    ("deg", "->") or "?" instead.
+    """
+    import codecs
+
+    try:
+        codecs.lookup_error("cellfuncs-stand-in")
+    except LookupError:
+        codecs.register_error("cellfuncs-stand-in", _stand_in)
+    for stream in (sys.stdout, sys.stderr):
+        if hasattr(stream, "reconfigure"):
+            try:
+                stream.reconfigure(errors="cellfuncs-stand-in")
+            except (ValueError, OSError):  # pragma: no cover - a closed or detached stream
+                pass
+
+
 def cmd_functions(ns) -> int:
     from cellfuncs import docgen
 
-    text = docgen.functions_markdown() if ns.markdown else docgen.functions_text()
+    _printable_output()
+    if ns.name:
+        entry = docgen.find_entry(ns.name)
+        if entry is None:
+            raise UsageError(docgen.unknown_name_line(ns.name))
+        text = docgen.function_markdown(entry) if ns.markdown else docgen.function_text(entry)
+    else:
+        text = docgen.functions_markdown() if ns.markdown else docgen.functions_text()
     sys.stdout.write(text)
     return 0
 
@@ -110,9 +156,13 @@ def cmd_functions(ns) -> int:
 def cmd_demo(ns) -> int:
     from cellfuncs import demo
 
+    _printable_output()
     out = os.path.abspath(ns.output)
     if os.path.exists(out) and not os.path.isdir(out):
         raise UsageError(f"-o {ns.output}: is a file, not a folder")
+    if os.path.isdir(out) and os.listdir(out) and not ns.force:
+        raise UsageError(f"-o {ns.output}: folder is not empty; choose an empty or new folder, "
+                         "or add --force to write the demo workbooks into it (files of the same name are replaced)")
     try:
         os.makedirs(out, exist_ok=True)
         summary = demo.build_all(out)
@@ -121,6 +171,23 @@ def cmd_demo(ns) -> int:
     for line in summary:
         print(line)
     print(f"demo workbooks written to {out}")
+    return 0
+
+
+def cmd_inputs(ns) -> int:
+    from cellfuncs import bookinfo
+    from cellfuncs.xlsx import BookError
+
+    _printable_output()
+    try:
+        info = bookinfo.book_info(ns.book)
+    except BookError as exc:
+        raise UsageError(str(exc)) from None
+    if ns.json:
+        json.dump(bookinfo.info_json(info), sys.stdout, ensure_ascii=True, default=str)
+        sys.stdout.write("\n")
+    else:
+        sys.stdout.write(bookinfo.info_text(info))
     return 0
 
 
@@ -135,7 +202,8 @@ def build_parser() -> argparse.ArgumentParser:
 
     p = argparse.ArgumentParser(prog="cellfuncs", description=(
         "Cell functions for tendering gas-engine CHP plants: recalculate workbooks headlessly, "
-        "list the functions, build the demo workbooks, run batch what-if cases. Results are "
+        "run batch what-if cases, list a workbook's inputs and outputs, list the functions, build the demo "
+        "workbooks. Results are "
         "estimates for tendering; engine data come from the engine's declared datasheet."))
     p.add_argument("--version", action="version", version=f"cellfuncs {__version__}")
     sub = p.add_subparsers(dest="command", required=True)
@@ -148,13 +216,21 @@ def build_parser() -> argparse.ArgumentParser:
     r.add_argument("--json", action="store_true", help="print every formula cell's value as JSON")
     r.set_defaults(func=cmd_recalc)
 
-    f = sub.add_parser("functions", help="list the cell functions")
+    f = sub.add_parser("functions", help="list the cell functions, or show one")
+    f.add_argument("name", nargs="?", help="one function to show (e.g. HX_LMTD; not case-sensitive)")
     f.add_argument("--markdown", action="store_true", help="Markdown (as in docs/functions.md)")
     f.set_defaults(func=cmd_functions)
 
     d = sub.add_parser("demo", help="build and recalculate the demo workbooks")
     d.add_argument("-o", "--output", default="cellfuncs-demo", help="folder (default ./cellfuncs-demo)")
+    d.add_argument("--force", action="store_true",
+                   help="write into a folder that is not empty (demo files of the same name are replaced)")
     d.set_defaults(func=cmd_demo)
+
+    i = sub.add_parser("inputs", help="list a workbook's named inputs, outputs and the columns cases accepts")
+    i.add_argument("book", help="workbook (.xlsx); only read")
+    i.add_argument("--json", action="store_true", help="print the same as one JSON object")
+    i.set_defaults(func=cmd_inputs)
 
     c = sub.add_parser("cases", help="run a workbook over the cases of a CSV file")
     c.add_argument("book", help="input workbook (.xlsx)")

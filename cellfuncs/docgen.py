@@ -4,12 +4,49 @@ from __future__ import annotations
 
 from cellfuncs import catalogue
 
-__all__ = ["functions_text", "functions_markdown"]
+__all__ = ["functions_text", "functions_markdown", "function_text", "function_markdown", "find_entry",
+           "unknown_name_line"]
 
 
 def _signature(e) -> str:
     parts = [f"[{a.name}]" if a.optional else a.name for a in e.args]
     return f"{e.name}({', '.join(parts)})"
+
+
+def find_entry(name: str):
+    """The catalogue entry called ``name`` (not case-sensitive, ``=`` and ``()`` ignored), or None."""
+    key = name.strip().lstrip("=").split("(")[0].strip().upper()
+    return next((e for e in catalogue.entries() if e.name == key), None)
+
+
+def unknown_name_line(name: str) -> str:
+    """One line for an unknown function name, with the closest names."""
+    import difflib
+
+    names = [e.name for e in catalogue.entries()]
+    key = name.strip().upper()
+    close = [n for n in names if key and n.startswith(key)][:5]
+    close += [n for n in difflib.get_close_matches(key, names, n=5, cutoff=0.5) if n not in close]
+    if close:
+        return f"no cell function {name!r}; closest: {', '.join(close[:5])}"
+    return f"no cell function {name!r}; `cellfuncs functions` lists them all"
+
+
+def _entry_lines(e) -> list:
+    lines = [_signature(e), f"    {e.description}"]
+    lines += [f"    {a.name}: {a.full_help()}" for a in e.args]
+    lines.append(f"    returns: {e.returns}")
+    return lines
+
+
+def function_text(e) -> str:
+    """One function as ``cellfuncs functions NAME`` shows it."""
+    lines = [f"{e.name} ({e.category})"] + _entry_lines(e)[1:]
+    lines.insert(1, "    " + _signature(e))
+    ex = _example_line(e)
+    if ex:
+        lines.append("    " + ex.replace("`", ""))
+    return "\n".join(lines) + "\n"
 
 
 def functions_text() -> str:
@@ -19,11 +56,7 @@ def functions_text() -> str:
         if e.category != category:
             category = e.category
             lines.append(f"\n== {category} ==")
-        lines.append(_signature(e))
-        lines.append(f"    {e.description}")
-        for a in e.args:
-            lines.append(f"    {a.name}: {a.full_help()}")
-        lines.append(f"    returns: {e.returns}")
+        lines += _entry_lines(e)
     return "\n".join(lines).lstrip("\n") + "\n"
 
 
@@ -76,18 +109,28 @@ def functions_markdown() -> str:
         if e.category != category:
             category = e.category
             out += [f"## {category}", ""]
-        out += [f"### `{_signature(e)}`", "", e.description, ""]
-        if e.args:
-            out += ["| argument | unit | meaning |", "|---|---|---|"]
-            for a in e.args:
-                name = f"[{a.name}]" if a.optional else a.name
-                help_ = a.full_help()
-                if a.unit:
-                    help_ = help_.replace(f" [{a.unit}]", "")
-                out.append(f"| `{name}` | {_md_escape(a.unit or '')} | {_md_escape(help_)} |")
-            out.append("")
-        out += [f"Returns: {e.returns}.".replace("..", "."), ""]
-        ex = _example_line(e)
-        if ex:
-            out += [ex, ""]
+        out += _markdown_lines(e)
     return "\n".join(out)
+
+
+def _markdown_lines(e) -> list:
+    out = [f"### `{_signature(e)}`", "", e.description, ""]
+    if e.args:
+        out += ["| argument | unit | meaning |", "|---|---|---|"]
+        for a in e.args:
+            name = f"[{a.name}]" if a.optional else a.name
+            help_ = a.full_help()
+            if a.unit:
+                help_ = help_.replace(f" [{a.unit}]", "")
+            out.append(f"| `{name}` | {_md_escape(a.unit or '')} | {_md_escape(help_)} |")
+        out.append("")
+    out += [f"Returns: {e.returns}.".replace("..", "."), ""]
+    ex = _example_line(e)
+    if ex:
+        out += [ex, ""]
+    return out
+
+
+def function_markdown(e) -> str:
+    """One function's section of docs/functions.md."""
+    return "\n".join(_markdown_lines(e))

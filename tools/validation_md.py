@@ -1,5 +1,13 @@
 """docs/validation.md: every outside check of the test suite, generated from tests/vectors/*.csv
-and from the ``Source:`` lines of the live cross-check tests' docstrings."""
+and from the ``Source:`` lines of the live cross-check tests' docstrings.
+
+Every check is shown against the catalogue cell function(s) it checks.  A vector file's
+``function`` column holds a cell-function name, or one of the labels of :data:`PART_CHECKS` for a
+check of a part of a cell function (its core routine or a constant it uses); a cross-check test is
+mapped in :data:`LIVE_CHECKS`.  An unknown label or an unmapped cross-check stops the generator, so
+the table never names anything that is not a cell function.  Cell functions without an outside
+check are listed as such.
+"""
 
 from __future__ import annotations
 
@@ -7,7 +15,22 @@ import ast
 import csv
 from pathlib import Path
 
-__all__ = ["validation_markdown"]
+__all__ = ["validation_markdown", "check_functions", "PART_CHECKS", "LIVE_CHECKS"]
+
+#: vector label -> (cell functions it checks, what part of them)
+PART_CHECKS = {
+    "EXH_MOLAR_MASS": (("EXH_FLOW",), "part: molar mass of the wet exhaust (EXH_FLOW's kg per mole of fuel)"),
+    "EXH_ENTHALPY_DROP": (("EXH_HEAT",), "EXH_HEAT per kg of exhaust (the test runs both)"),
+    "RATE_CHAIN": (("HW_CHAIN_RATE",), "HW_CHAIN_RATE's core with the capacity rates given"),
+    "T_BOIL": (("HW_CP", "HW_DENSITY"), "part: top of the water temperature range (boiling at 3 bar(a))"),
+}
+
+#: cross-check test (file::test) -> the cell functions it checks
+LIVE_CHECKS = {
+    "test_gas_iso6976.py::test_z_out_of_scope_refused": ("GAS_Z", "GAS_CV", "GAS_DENSITY", "GAS_REL_DENSITY",
+                                                         "GAS_WOBBE"),
+    "test_recovery.py::test_order_changes_total": ("HW_CHAIN_RATE",),
+}
 
 
 def _tol(row):
@@ -36,8 +59,32 @@ def _live_checks(tests_dir: Path):
     return out
 
 
+def _catalogue_names() -> list:
+    from cellfuncs import catalogue
+
+    return [e.name for e in catalogue.entries()]
+
+
+def check_functions(label: str) -> tuple:
+    """(cell functions, part note) a vector row labelled ``label`` checks; ValueError if unknown."""
+    if label in PART_CHECKS:
+        return PART_CHECKS[label]
+    if label in _catalogue_names():
+        return (label,), ""
+    raise ValueError(f"tests/vectors: function label {label!r} is neither a cell function nor in "
+                     "PART_CHECKS of tools/validation_md.py")
+
+
+def _fn_cell(label: str) -> str:
+    names, part = check_functions(label)
+    text = ", ".join(f"`{n}`" for n in names)
+    return f"{text} ({_esc(part)})" if part else text
+
+
 def validation_markdown(root: Path) -> str:
     vec_dir = root / "tests" / "vectors"
+    names = _catalogue_names()
+    counts = {n: [0, 0, set()] for n in names}   # direct checks, part checks, where
     lines = [
         "# Validation",
         "",
@@ -56,16 +103,41 @@ def validation_markdown(root: Path) -> str:
         lines += [f"## {path.stem} (`tests/vectors/{path.name}`, {len(rows)} checks)", "",
                   "| function | source | locator | expected | tolerance |", "|---|---|---|---|---|"]
         for r in rows:
-            lines.append(f"| `{_esc(r.get('function'))}` | {_esc(r.get('source'))} | "
+            fns, part = check_functions(r.get("function"))
+            for n in fns:
+                counts[n][1 if part else 0] += 1
+                counts[n][2].add(f"`{path.name}`")
+            lines.append(f"| {_fn_cell(r.get('function'))} | {_esc(r.get('source'))} | "
                          f"{_esc(r.get('locator'))} | {_esc(r.get('expected'))} | {_tol(r)} |")
         lines.append("")
     live = _live_checks(root / "tests")
     if live:
         lines += ["## Cross-checks computed in the tests", "",
-                  "| test | source |", "|---|---|"]
+                  "| function | test | source |", "|---|---|---|"]
         for fname, test, src in live:
-            lines.append(f"| `{fname}::{test}` | {_esc(src)} |")
+            key = f"{fname}::{test}"
+            if key not in LIVE_CHECKS:
+                raise ValueError(f"{key}: a cross-check with a Source: line is not mapped in LIVE_CHECKS "
+                                 "of tools/validation_md.py")
+            for n in LIVE_CHECKS[key]:
+                counts[n][0] += 1
+                counts[n][2].add(f"`{fname}`")
+            lines.append(f"| {', '.join(f'`{n}`' for n in LIVE_CHECKS[key])} | `{key}` | {_esc(src)} |")
         lines.append("")
+    cover = ["## Cell functions and their outside checks", "",
+             "| function | outside checks | of a part | where |", "|---|---|---|---|"]
+    for n in names:
+        direct, part, where = counts[n]
+        if direct or part:
+            cover.append(f"| `{n}` | {direct} | {part} | {', '.join(sorted(where))} |")
+        else:
+            cover.append(f"| `{n}` | none | none | no outside check yet |")
+    cover.append("")
+    unchecked = [n for n in names if not any(counts[n][:2])]
+    cover.insert(2, f"{len(names) - len(unchecked)} of {len(names)} cell functions have an outside check; "
+                    f"without one: {', '.join(f'`{n}`' for n in unchecked) or 'none'}.")
+    cover.insert(3, "")
+    lines[6:6] = cover
     lines.insert(6, f"{total} tabulated checks in {len(list(vec_dir.glob('*.csv')))} files; "
                     f"{len(live)} cross-checks computed in tests.")
     lines.insert(7, "")

@@ -4,6 +4,12 @@ Every demo workbook has an ``Inputs`` sheet (named input cells, units beside
 them, drop-down lists for option words), calculation sheets that call our
 functions, a ``Results`` sheet, an ``xlwings.conf`` sheet with
 ``UDF Modules`` = ``cellfuncs.excel``, and a visible caution block.
+
+Tables of inputs (a gas analysis) sit on columns of their own to the right of
+the note column.  Every sheet named ``Inputs`` or ``Results`` gets a print
+area and a fit-to-width page setup when the book is saved, whatever module
+built it.  No defined name may equal a cell-function name (LibreOffice shows
+``Err:509`` for such a formula and Excel's function import trips over it).
 """
 
 from __future__ import annotations
@@ -14,9 +20,15 @@ from openpyxl import Workbook
 from openpyxl.styles import Alignment, Border, Font, PatternFill, Side
 from openpyxl.workbook.defined_name import DefinedName
 from openpyxl.worksheet.datavalidation import DataValidation
+from openpyxl.utils import get_column_letter
 from openpyxl.worksheet.formula import ArrayFormula
 
-__all__ = ["DemoBook", "CAUTION_LINES"]
+__all__ = ["DemoBook", "CAUTION_LINES", "PRINTED_SHEETS", "page_setup"]
+
+#: sheets that get a print area and a fit-to-width page setup when a demo book is saved
+PRINTED_SHEETS = ("Inputs", "Results")
+#: first column of the tables of inputs on the Inputs sheet (after the note column D and a gap E)
+_TABLE_COL = 6
 
 CAUTION_LINES = (
     "CAUTION — estimates for tendering only.",
@@ -33,6 +45,43 @@ _CAUTION_FILL = PatternFill("solid", fgColor="FFF4D6D6")
 _THIN = Side(style="thin", color="FF9A9A9A")
 _BOX = Border(top=_THIN, bottom=_THIN, left=_THIN, right=_THIN)
 FIXED_TIME = _dt.datetime(2026, 1, 1, 0, 0, 0)
+
+
+def _function_names() -> frozenset:
+    from cellfuncs import catalogue
+
+    return frozenset(e.name.upper() for e in catalogue.entries())
+
+
+def page_setup(ws, print_area: bool = True) -> None:
+    """Landscape when wide, fit to one page wide (any height); print area over the used cells."""
+    last_col, last_row = ws.max_column, ws.max_row
+    if print_area:
+        ws.print_area = f"A1:{get_column_letter(last_col)}{last_row}"
+    width = sum((ws.column_dimensions[get_column_letter(i)].width or 9) for i in range(1, last_col + 1))
+    ws.page_setup.orientation = "landscape" if width > 110 else "portrait"
+    ws.page_setup.paperSize = ws.PAPERSIZE_A4
+    ws.page_setup.fitToWidth = 1
+    ws.page_setup.fitToHeight = 0
+    ws.sheet_properties.pageSetUpPr.fitToPage = True
+    ws.print_options.gridLines = False
+    ws.page_margins.left = ws.page_margins.right = 0.5
+
+
+def _wrapped(ws, row, col, text, width=None):
+    """Write ``text`` wrapped in its column, the row made tall enough (no program re-fits it)."""
+    c = ws.cell(row, col, text)
+    c.alignment = Alignment(wrap_text=True, vertical="top")
+    width = width or ws.column_dimensions[get_column_letter(col)].width or 9
+    lines = -(-len(str(text)) // max(int(width * 1.25), 1))
+    if lines > 1:
+        rd = ws.row_dimensions[row]
+        rd.height = max(rd.height or 15, 15 * lines)
+        for left in range(1, col):  # the row's label, value and unit at the top, beside the first line
+            cell = ws.cell(row, left)
+            if cell.value is not None:
+                cell.alignment = Alignment(vertical="top", wrap_text=cell.alignment.wrap_text)
+    return c
 
 
 class _Sheet:
@@ -135,9 +184,10 @@ class DemoBook:
         ws["A1"] = title
         ws["A1"].font = _TITLE
         ws["A2"] = purpose
-        for col, width in zip("ABCD", (46, 18, 12, 70)):
+        for col, width in zip("ABCD", (46, 18, 12, 56)):
             ws.column_dimensions[col].width = width
         self._in_row = 4
+        self._table_row = 4
         self._head_inputs()
         self.sheets = {}
 
@@ -147,6 +197,10 @@ class DemoBook:
         self._in_row += 1
 
     def name(self, name: str, ref: str):
+        """Define ``name`` for ``ref``; a name equal to a cell-function name is refused."""
+        if name.upper() in _function_names():
+            raise ValueError(f"defined name {name!r} is the name of the cell function {name.upper()}; "
+                             "choose another name (a workbook must not define it)")
         self.wb.defined_names[name] = DefinedName(name, attr_text=ref)
 
     def input_heading(self, text: str):
@@ -166,7 +220,7 @@ class DemoBook:
             c.number_format = fmt
         ws.cell(r, 3, unit)
         if note:
-            ws.cell(r, 4, note)
+            _wrapped(ws, r, 4, note)
         if options:
             dv = DataValidation(type="list", formula1='"' + ",".join(options) + '"', allow_blank=True)
             ws.add_data_validation(dv)
@@ -198,33 +252,47 @@ class DemoBook:
         return name
 
     def input_table(self, label, header, rows, names, unit="", note=""):
-        """A table of inputs: first column labels (column B), then one named column per name.
+        """A table of inputs on columns of its own, right of the note column.
 
-        ``names[i]`` names column i of the table (``None`` leaves it unnamed); returns the
-        first and last row numbers.
+        The first column holds the row labels, then one column per further header
+        entry; ``names[i]`` names column i of the table (``None`` leaves it
+        unnamed).  Tables stack downwards from the top of the sheet.  ``unit`` is
+        added to the label when the label does not already say it.  Returns the
+        first and last row numbers of the data.
         """
         ws = self.inputs
-        ws.cell(self._in_row, 1, label).font = _HEAD
+        col0 = _TABLE_COL
+        if unit and unit not in label:
+            label = f"{label} ({unit})"
+        ws.cell(self._table_row, col0, label).font = _HEAD
+        self._table_row += 1
         if note:
-            ws.cell(self._in_row, 4 + len(header), note)
-        self._in_row += 1
+            ws.cell(self._table_row, col0, note).font = Font(italic=True)
+            self._table_row += 1
+        widths = []
         for j, h in enumerate(header):
-            ws.cell(self._in_row, 2 + j, h).font = _HEAD
-        if unit:
-            ws.cell(self._in_row, 2 + len(header), unit)
-        self._in_row += 1
-        first = self._in_row
+            longest = max([len(str(h)) // 2 + 1] + [len(str(r[j])) for r in rows])
+            dim = ws.column_dimensions[get_column_letter(col0 + j)]
+            dim.width = max(dim.width or 0, min(max(longest + 3, 10), 28))
+            widths.append(dim.width)
+        for j, h in enumerate(header):
+            c = _wrapped(ws, self._table_row, col0 + j, h, widths[j])
+            c.font = _HEAD
+        self._table_row += 1
+        first = self._table_row
         for row in rows:
             for j, v in enumerate(row):
-                c = ws.cell(self._in_row, 2 + j, v)
+                c = ws.cell(self._table_row, col0 + j, v)
                 c.border = _BOX
                 if j > 0:
                     c.fill = _INPUT_FILL
-            self._in_row += 1
-        last = self._in_row - 1
+            self._table_row += 1
+        last = self._table_row - 1
+        self._table_row += 1
+        ws.column_dimensions[get_column_letter(col0 - 1)].width = 3
         for j, name in enumerate(names):
             if name:
-                col = chr(ord("B") + j)
+                col = get_column_letter(col0 + j)
                 self.name(name, f"Inputs!${col}${first}:${col}${last}")
         return first, last
 
@@ -255,4 +323,8 @@ class DemoBook:
         self.wb.calculation.fullCalcOnLoad = True
 
     def save(self, path: str):
+        for ws in self.wb.worksheets:
+            if ws.title != "xlwings.conf":
+                # calculation sheets: no print area, so that their charts print too
+                page_setup(ws, print_area=ws.title in PRINTED_SHEETS)
         self.wb.save(path)

@@ -24,7 +24,7 @@ T_MIX = (35, 40, 45, 50, 55, 60)
 MNS = (60, 70, 80, 90, 100)
 T_AMB = (10, 15, 20, 25, 30, 35, 40, 45)
 RHS = (0.3, 0.6, 0.9)
-ARGS_MIX = "lambda_air,gas_names,gas_amounts,t_amb,rh_amb,p_amb"
+ARGS_MIX = "air_ratio,gas_names,gas_amounts,t_ambient,rh_ambient,p_ambient_bar"
 
 
 def build(path: str) -> None:
@@ -32,12 +32,12 @@ def build(path: str) -> None:
                  "Charge-air chain (compressor, HT and LT cooler stages), dew point against the intake "
                  "temperature, knock margin over mixture temperature, methane number and ambient.")
     b.input_heading("Site (invented hot, humid day)")
-    b.input("t_amb", "Ambient air temperature", 34, "°C")
-    b.input("rh_amb", "Ambient relative humidity", 0.65, "-", "fraction 0–1")
-    b.input("p_amb", "Ambient pressure", 0.98, "bar(a)")
+    b.input("t_ambient", "Ambient air temperature", 34, "°C")
+    b.input("rh_ambient", "Ambient relative humidity", 0.65, "-", "fraction 0–1")
+    b.input("p_ambient_bar", "Ambient pressure", 0.98, "bar(a)")
     b.input_heading("Engine (values as from a declared datasheet; invented here)")
     b.input("fuel_kw", "Fuel power (net)", 2900, "kW")
-    b.input("lambda_air", "Air excess ratio lambda", 1.9, "-")
+    b.input("air_ratio", "Air excess ratio λ", 1.9, "-")
     b.input("p_boost", "Boost pressure after the compressor", 3.4, "bar(a)")
     b.input("eta_c", "Compressor isentropic efficiency", 0.78, "-")
     b.input("cr", "Compression ratio (effective)", 12.0, "-",
@@ -58,10 +58,10 @@ def build(path: str) -> None:
     c.calc("Methane number of the gas (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,gas_amounts)",
            "-", name="mn_gas", fmt="0.0")
     c.calc("Mixture mass flow (dry air + water vapour + gas)",
-           '=CAC_MIXTURE_FLOW(fuel_kw,lambda_air,gas_names,gas_amounts,"net",t_amb,rh_amb,p_amb,"mixture")',
+           '=CAC_MIXTURE_FLOW(fuel_kw,air_ratio,gas_names,gas_amounts,"net",t_ambient,rh_ambient,p_ambient_bar,"mixture")',
            "kg/h", name="mix_flow", fmt="0")
-    c.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_amb,p_amb,p_boost,eta_c,lambda_air,gas_names,"
-           "gas_amounts,t_amb,rh_amb)", "°C", name="t_comp_out", fmt="0.0")
+    c.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_ambient,p_ambient_bar,p_boost,eta_c,air_ratio,"
+           "gas_names,gas_amounts,t_ambient,rh_ambient)", "°C", name="t_comp_out", fmt="0.0")
     c.calc("HT stage duty (compressor outlet → after HT)",
            f"=CAC_DUTY(mix_flow,t_comp_out,t_after_ht,p_boost,{ARGS_MIX})", "kW", name="out_ht_duty",
            result=True, fmt="0.0")
@@ -108,26 +108,47 @@ def build(path: str) -> None:
 
     a = b.sheet("Ambient grid", "Through the charge-air chain: ambient temperature and humidity")
     a.note("Intake temperature = ambient + dry-cooler approach + LT-stage approach (demo assumption).")
-    head = a.table_row("ambient °C", ["intake °C", "knock margin K"] + [f"dew point °C, rh {rh:.0%}" for rh in RHS])
+    a.note("Condensate forms in the LT stage where the intake temperature is below the dew point.")
+    head = a.table_row("ambient °C", ["intake °C", "knock margin K"]
+                       + [f"dew point °C, rh {rh:.0%}" for rh in RHS])
     first = a.row
     for t in T_AMB:
         r = a.row
         cells = [f"=$A{r}+dry_approach+lt_approach",
                  f"=KNOCK_MARGIN(B{r},p_boost,cr,mn_gas,t_ref,p_ref,mn_ref,cr,\"K\",k_mn)"]
-        cells += [f"=CAC_DEWPOINT(p_boost,lambda_air,gas_names,gas_amounts,$A{r},{rh},p_amb)" for rh in RHS]
+        cells += [f"=CAC_DEWPOINT(p_boost,air_ratio,gas_names,gas_amounts,$A{r},{rh},p_ambient_bar)"
+                  for rh in RHS]
         a.table_row(t, cells, "", "0.0")
     last = a.row - 1
-    chart2 = ScatterChart()
-    chart2.title = "Knock margin and dew point against ambient temperature"
-    chart2.style = 13
-    chart2.x_axis.title = "ambient temperature [°C]"
-    chart2.y_axis.title = "[K] / [°C]"
     xs = Reference(a.ws, min_col=1, min_row=first, max_row=last)
-    for col in range(3, 4 + len(RHS) + 1):
+    dew = ScatterChart()
+    dew.title = "Intake temperature against the mixture's dew point"
+    dew.style = 13
+    dew.x_axis.title = "ambient temperature [°C]"
+    dew.y_axis.title = "temperature [°C]"
+    # the intake temperature (solid, dark), then the dew point at each humidity (dashed, light to dark)
+    for col, colour, dash in [(2, "1F3A5F", None)] + [(4 + j, c, "dash") for j, c in
+                                                       enumerate(("E8A33D", "D0652B", "9E2A2B"))]:
         ys = Reference(a.ws, min_col=col, min_row=head, max_row=last)
-        chart2.series.append(Series(ys, xs, title_from_data=True))
-    chart2.width, chart2.height = 18, 9
-    a.ws.add_chart(chart2, f"A{last + 3}")
+        s = Series(ys, xs, title_from_data=True)
+        s.graphicalProperties.line.solidFill = colour
+        s.graphicalProperties.line.width = 28575 if dash is None else 19050
+        if dash:
+            s.graphicalProperties.line.dashStyle = dash
+        s.smooth = False
+        dew.series.append(s)
+    dew.width, dew.height = 18, 9
+    a.ws.add_chart(dew, f"A{last + 3}")
+    knock = ScatterChart()
+    knock.title = "Knock margin against ambient temperature"
+    knock.style = 13
+    knock.x_axis.title = "ambient temperature [°C]"
+    knock.y_axis.title = "knock margin [K]"
+    knock.series.append(Series(Reference(a.ws, min_col=3, min_row=head, max_row=last), xs,
+                               title_from_data=True))
+    knock.legend = None
+    knock.width, knock.height = 18, 9
+    a.ws.add_chart(knock, f"E{last + 3}")
 
     res = b.sheet("Results", "Knock and condensation summary — Quarry Lane (invented)")
     res.calc("Methane number of the gas", "=mn_gas", "-", fmt="0.0")
