@@ -23,6 +23,14 @@ PART_CHECKS = {
     "EXH_ENTHALPY_DROP": (("EXH_HEAT",), "EXH_HEAT per kg of exhaust (the test runs both)"),
     "RATE_CHAIN": (("HW_CHAIN_RATE",), "HW_CHAIN_RATE's core with the capacity rates given"),
     "T_BOIL": (("HW_CP", "HW_DENSITY"), "part: top of the water temperature range (boiling at 3 bar(a))"),
+    # IAPWS-IF97 (cellfuncs/props/if97.py): region 1 carries plain water, regions 2 and 4 the steam
+    **{f"R1_{q}": (("HW_CP", "HW_DENSITY", "HW_FLOW", "HW_DUTY", "EXH_STEAM"),
+                   f"part: IAPWS-IF97 region 1 ({q.lower()})") for q in ("V", "H", "S", "CP", "T_PH")},
+    **{f"R2_{q}": (("EXH_STEAM",), f"part: IAPWS-IF97 region 2 ({q.lower()})") for q in ("V", "H", "S", "CP")},
+    "P_SAT": (("EXH_STEAM",), "part: IAPWS-IF97 region 4 saturation pressure"),
+    "T_SAT": (("EXH_STEAM",), "part: IAPWS-IF97 region 4 saturation temperature"),
+    "SAT_H_LIQUID": (("EXH_STEAM",), "part: saturated-water enthalpy (IF97 regions 1 and 4)"),
+    "SAT_H_VAPOUR": (("EXH_STEAM",), "part: saturated-steam enthalpy (IF97 regions 2 and 4)"),
 }
 
 #: cross-check test (file::test) -> the cell functions it checks
@@ -30,6 +38,12 @@ LIVE_CHECKS = {
     "test_gas_iso6976.py::test_z_out_of_scope_refused": ("GAS_Z", "GAS_CV", "GAS_DENSITY", "GAS_REL_DENSITY",
                                                          "GAS_WOBBE"),
     "test_recovery.py::test_order_changes_total": ("HW_CHAIN_RATE",),
+    "test_emissions.py::test_verhoff_banchero_published_worked_example": ("EXH_ACID_DEWPOINT",),
+    "test_mn_spread.py::test_pure_methane_by_hand": ("GAS_METHANE_NUMBER", "GAS_METHANE_NUMBER_SPREAD"),
+    "test_site.py::test_site_pressure_vs_us_standard_atmosphere": ("SITE_PRESSURE",),
+    "test_site.py::test_geopotential_vs_geometric_under_0p1_percent": ("SITE_PRESSURE",),
+    "test_site.py::test_table_interp_matches_numpy_interp": ("TABLE_INTERP",),
+    "test_site.py::test_table_interp2_matches_scipy": ("TABLE_INTERP2",),
 }
 
 
