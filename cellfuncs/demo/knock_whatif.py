@@ -6,7 +6,9 @@ heat-recovery circuit, LT stage to a dry cooler).  The workbook follows the
 mixture through the compressor and both cooler stages, compares the intake
 temperature with the mixture's dew point, and tabulates the knock margin over
 mixture temperature and methane number, and over the ambient temperature and
-humidity (through the charge-air chain), with charts.
+humidity (through the charge-air chain), with charts.  Beside the default
+methane number it shows the spread over the published methods and the knock
+margin at the lowest of them (issue 12).
 """
 
 from __future__ import annotations
@@ -78,6 +80,23 @@ def build(path: str) -> None:
            "mn_ref,cr,\"K\",k_mn)", "K", name="out_margin_k", result=True, fmt="0.0")
     c.calc("Knock margin in methane-number points", "=KNOCK_MARGIN(t_intake,p_boost,cr,mn_gas,t_ref,p_ref,"
            "mn_ref,cr,\"MN\",k_mn)", "-", name="out_margin_mn", fmt="0.0")
+    c.heading("Methane number by method: the spread and the knock margin at its lowest")
+    c.calc("Methane-number spread (highest − lowest method)",
+           "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,\"spread\")", "-", name="mn_spread", fmt="0.0")
+    c.calc("Lowest methane number of the methods", "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,"
+           "\"lowest\")", "-", name="mn_lowest", fmt="0.0")
+    c.calc("Methods that apply to this gas", "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,\"count\")",
+           "-", name="mn_methods_count", fmt="0")
+    c.calc("Knock margin at the default MN (EN 16726 Annex A)", "=out_margin_k", "K", fmt="0.0")
+    c.calc("Knock margin at the lowest MN of the methods", "=KNOCK_MARGIN(t_intake,p_boost,cr,mn_lowest,t_ref,"
+           "p_ref,mn_ref,cr,\"K\",k_mn)", "K", name="out_knock_margin_mn_low", result=True, fmt="0.0")
+    c.calc("Each method's methane number", "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,\"methods\")",
+           "", name="mn_methods")
+    c.note("Published methods differ by 5–10 MN on the same gas (EN 16726 Annex A; Kubesh, King & Liss 1992 "
+           "with the paper's or ISO 15403-1's MON-to-MN): judge the margin at the lowest.")
+    c.note("The engine's required methane number, and the method it is stated in, come from the engine's "
+           "declared datasheet.")
+    c.heading("Mixture-temperature limit and required methane number")
     c.calc("Highest mixture temperature for this gas", "=KNOCK_T_LIMIT(p_boost,cr,mn_gas,t_ref,p_ref,mn_ref,cr,"
            "k_mn)", "°C", name="out_t_limit", result=True, fmt="0.0")
     c.calc("Methane number needed at the intake temperature", "=KNOCK_MN_REQUIRED(t_intake,p_boost,cr,t_ref,"
@@ -158,7 +177,13 @@ def build(path: str) -> None:
     res.calc("Dew point at boost pressure", "=out_dewpoint", "°C", result=True, fmt="0.0")
     res.calc("Condensation check", "=dew_check", "")
     res.calc("Knock margin at the intake temperature", "=out_margin_k", "K", result=True, fmt="0.0")
+    res.calc("Methane-number spread over the methods", "=mn_spread", "-", fmt="0.0")
+    res.calc("Lowest methane number of the methods", "=mn_lowest", "-", fmt="0.0")
+    res.calc("Knock margin at the lowest methane number", "=out_knock_margin_mn_low", "K", result=True,
+             fmt="0.0")
     res.calc("Highest mixture temperature for this gas", "=out_t_limit", "°C", result=True, fmt="0.0")
+    res.note("Methane-number methods differ by 5–10 MN on the same gas (see Chain).")
+    res.note("The engine's required MN, and its method, come from its declared datasheet.")
     b.finish()
     b.save(path)
 
@@ -170,4 +195,6 @@ def summary(v: dict) -> list:
 
     return [f"cooler: HT {f('out_ht_duty')} kW, LT {f('out_lt_duty')} kW; dew point {f('out_dewpoint')} °C, "
             f"condensate {f('out_condensate', 2)} kg/h",
-            f"knock margin {f('out_margin_k')} K ({f('out_margin_mn')} MN); mixture limit {f('out_t_limit')} °C"]
+            f"knock margin {f('out_margin_k')} K ({f('out_margin_mn')} MN); mixture limit {f('out_t_limit')} °C",
+            f"methane number {f('mn_gas')} (default method), lowest {f('mn_lowest')} (spread {f('mn_spread')}); "
+            f"knock margin at the lowest {f('out_knock_margin_mn_low')} K"]
