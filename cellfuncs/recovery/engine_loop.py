@@ -161,9 +161,9 @@ def loop_in_chain(duty_kw: float, t_engine_in_max: float, m_engine: float, engin
     dump = duty_kw - to_client
     h_wo = h_water_in + to_client / m_water
     gw, gwn = water_fluid
-    t_wo = (t_water_in if to_client == 0 else
-            _temperature(h_wo, t_water_in + 1.0, gw, gwn, "ua_kw_k: " + pre + "the exchanger", "heats",
-                         "raise water_flow_m3_h"))
+    t_wo = (t_water_in if to_client == 0 else  # max(): Newton's last digit must not cool the water
+            max(t_water_in, _temperature(h_wo, t_water_in + 1.0, gw, gwn, "ua_kw_k: " + pre + "the exchanger",
+                                         "heats", "raise water_flow_m3_h")))
     t_hot_out = (t_engine_in_max if dump == 0 else
                  _w.temperature_from_enthalpy(h_eo - to_client / m_engine, t_engine_in_max, ge, gen))
     return {"to_client": to_client, "dump": dump, "t_engine_out": t_eo, "t_hot_out": t_hot_out,
