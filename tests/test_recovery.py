@@ -200,7 +200,7 @@ def test_cell_chain_layout():
     assert len(row) == 1 and len(row[0]) == 4
     col = cell_chain(60.0, 50.0, ((200.0,), (300.0,), (None,), (400.0,)))
     assert [c[0] for c in col] == row[0]
-    assert cell_chain(60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 2) == [[row[0][1]]]
+    assert cell_chain(60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 2) == row[0][1]
 
 
 def test_cell_chain_rate_outputs():
@@ -398,7 +398,7 @@ def test_catalogue_calls_like_the_adapters():
     assert call("HW_CP", 70.0) == pytest.approx(hw_cp(70.0))
     t = call("HW_CHAIN", 60.0, 50.0, ((200.0, 300.0),))
     assert len(t[0]) == 2
-    assert call("HW_CHAIN", 60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 1) == [[t[0][0]]]
+    assert call("HW_CHAIN", 60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 1) == t[0][0]
     r = call("HW_CHAIN_RATE", 70.0, 40.0, ((92.0, 450.0),), ((20.95, 3.351),), ((60.0, 8.0),))
     assert 70 < r[0][0] < r[0][1]
     assert call("HW_CHAIN_CHECK", 60.0, 50.0, ((200.0,),), ((95.0,),)) == "OK"

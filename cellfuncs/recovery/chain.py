@@ -522,7 +522,7 @@ def cell_chain(t_water_in, water_flow_m3_h, duties_kw, glycol_fraction=0.0, glyc
     if stage is None:
         return layout(temps, lay if lay != "flat" else "row")
     k = _check_stage(stage, len(temps))
-    return [[temps[k - 1]]]
+    return temps[k - 1]
 
 
 def _check_stage(stage, n: int) -> int:
