@@ -224,10 +224,12 @@ def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
         return [f'=IF({c}{src}="exhaust",{expr_exhaust},{expr_loop})' for c in cols]
 
     kinds = s.table_row("stage kind", per('"stream"', '"loop"'))
-    t_in = s.table_row("source in [°C] (exhaust)", per("t_exhaust_in", '""'), "°C", "0.0")
-    c_src = s.table_row("source capacity rate [kW/K] (exhaust)", per("c_exhaust_kw_k", '""'), "kW/K", "0.000")
+    # a loop's source inlet and capacity rate, and a stream's declared heat, are shown but not used
+    t_in = s.table_row("source in [°C] (used for streams)", per("t_exhaust_in", "t_engine_out"), "°C", "0.0")
+    c_src = s.table_row("source capacity rate [kW/K] (used for streams)",
+                        per("c_exhaust_kw_k", "q_ht_kw/(t_engine_out-t_engine_in_max)"), "kW/K", "0.000")
     ua = s.table_row("UA [kW/K]", per("ua_exhaust", "ua_plate"), "kW/K", "0.00")
-    duty = s.table_row("engine duty [kW] (loop)", per('""', "q_ht_kw"), "kW", "0.0")
+    duty = s.table_row("declared heat [kW] (used for loops)", per("q_exhaust_kw", "q_ht_kw"), "kW", "0.0")
     rng = {k: f"$B${r}:$C${r}" for k, r in (("kinds", kinds), ("t_in", t_in), ("c", c_src), ("ua", ua),
                                              ("duty", duty))}
     base = (f"t_water_in,water_flow_m3_h,{rng['t_in']},{rng['c']},{rng['ua']},\"counter\",\"{{w}}\",0,"
