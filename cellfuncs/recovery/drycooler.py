@@ -20,6 +20,8 @@ licensed engineers.
 
 from __future__ import annotations
 
+import re
+
 from cellfuncs.errors import CellInputError, check_range, fmt
 
 __all__ = ["drycooler_ua", "drycooler_air_flow", "humid_air_fractions"]
@@ -78,7 +80,15 @@ def drycooler_ua(duty_kw: float, t_water_in: float, t_water_out: float, t_air_in
     if not t_air_out > t_air_in:
         raise CellInputError(f"t_air_out: {fmt(t_air_out)} °C is not above t_air_in {fmt(t_air_in)} °C; "
                              "the air is heated")
-    return ua_required(duty_kw, t_water_in, t_water_out, t_air_in, t_air_out, arrangement)
+    check_range("t_air_out", t_air_out, -60.0, 200.0, "°C")
+    try:
+        return ua_required(duty_kw, t_water_in, t_water_out, t_air_in, t_air_out, arrangement)
+    except CellInputError as err:  # the heat-exchanger family names its streams hot and cold
+        msg = err.message
+        for a, b in (("t_hot_in", "t_water_in"), ("t_hot_out", "t_water_out"), ("t_cold_in", "t_air_in"),
+                     ("t_cold_out", "t_air_out")):
+            msg = re.sub(rf"\b{a}\b", b, msg)
+        raise CellInputError(msg) from None
 
 
 def humid_air_fractions(t_air_in: float, rh_ambient: float, p_ambient_bar: float) -> dict:
