@@ -90,3 +90,15 @@ def test_no_legacy_array_formulas_and_no_stray_header():
 
     functions = {e.name.upper() for e in entries()}
     assert not [n for n in wb.defined_names if n.upper() in functions]
+
+
+def test_cases_over_the_demo_inputs():
+    """`cellfuncs cases` runs the demo over its inputs (site, client water); the first case reproduces the
+    committed workbook, a hotter site with a colder client circuit still closes the balance."""
+    from cellfuncs.cases import CaseRunner
+
+    runner = CaseRunner(str(BOOK), ["t_ambient", "rh_ambient", "t_water_in", "t_water_out"],
+                        ["out_balance_check", "out_heat_to_client", "out_dump_heat"])
+    rows = [runner.run_case([30.0, 0.55, 60.0, 90.0]), runner.run_case([35.0, 0.6, 55.0, 85.0])]
+    assert str(rows[0][0]).startswith("OK: ") and str(rows[1][0]).startswith("OK: ")
+    assert rows[0][1] == pytest.approx(_named("out_heat_to_client"), rel=1e-9)

@@ -35,7 +35,8 @@ NG = ((("methane",), ("ethane",), ("propane",), ("nitrogen",), ("carbon dioxide"
 @pytest.mark.parametrize("row", params("plant", "HW_ENGINE_LOOP"))
 def test_engine_loop_vectors(row):
     got = cell_hw_engine_loop(row["duty_kw"], row["t_engine_in_max"], row["engine_flow_m3_h"], row["t_water_in"],
-                              row["water_flow_m3_h"], row["ua_kw_k"], row["arrangement"], row["result"])
+                              row["water_flow_m3_h"], row["ua_kw_k"], row["arrangement"], row["result"],
+                              row["glycol_fraction"] or 0.0, "ethylene")
     assert got == approx(row)
 
 

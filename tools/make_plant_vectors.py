@@ -24,33 +24,37 @@ P_CIRCUIT = 3e5  # Pa, the hot-water family's circuit pressure
 COLUMNS = ("function,source,locator,expected,rtol,atol,note,el,th,ref_el,ref_th,fuel_kw,electrical_kw,heat_kw,"
            "output,fuel,year,heat_use,voltage_kv,onsite_share,duty_kw,t_engine_in_max,engine_flow_m3_h,"
            "t_water_in,water_flow_m3_h,ua_kw_k,arrangement,result,exhaust_flow_kg_h,t_stack,t_reference,"
-           "air_ratio,gas,t_water_out,t_air_in,t_air_out,rh_ambient,p_ambient_bar").split(",")
+           "air_ratio,gas,t_water_out,t_air_in,t_air_out,rh_ambient,p_ambient_bar,glycol_fraction").split(",")
 
 
-def h_w(t):  # kJ/kg, water at 3 bar(a)
-    return CP.PropsSI("H", "T", t + 273.15, "P", P_CIRCUIT, "Water") / 1e3
+def _fluid(x):
+    return "Water" if not x else f"INCOMP::MEG[{x}]"
 
 
-def rho_w(t):
-    return CP.PropsSI("D", "T", t + 273.15, "P", P_CIRCUIT, "Water")
+def h_w(t, x=0.0):  # kJ/kg at 3 bar(a): water (IAPWS-95) or ethylene glycol (Melinder 2010)
+    return CP.PropsSI("H", "T", t + 273.15, "P", P_CIRCUIT, _fluid(x)) / 1e3
 
 
-def t_from_h(h):
-    return CP.PropsSI("T", "H", h * 1e3, "P", P_CIRCUIT, "Water") - 273.15
+def rho_w(t, x=0.0):
+    return CP.PropsSI("D", "T", t + 273.15, "P", P_CIRCUIT, _fluid(x))
 
 
-def engine_loop(duty, t_emax, flow_e, t_wi, flow_w, ua, subtype):
-    """The issue's model, stage by stage with ht and CoolProp (mean cp iterated)."""
-    m_e = flow_e * rho_w(t_emax) / 3600
+def t_from_h(h, x=0.0):
+    return CP.PropsSI("T", "H", h * 1e3, "P", P_CIRCUIT, _fluid(x)) - 273.15
+
+
+def engine_loop(duty, t_emax, flow_e, t_wi, flow_w, ua, subtype, x=0.0):
+    """The issue's model, stage by stage with ht and CoolProp (mean cp iterated); x = engine-side glycol."""
+    m_e = flow_e * rho_w(t_emax, x) / 3600
     m_w = flow_w * rho_w(t_wi) / 3600
-    h_eo = h_w(t_emax) + duty / m_e
-    t_eo = t_from_h(h_eo)
+    h_eo = h_w(t_emax, x) + duty / m_e
+    t_eo = t_from_h(h_eo, x)
     cp_h = cp_c = 4.2
     for _ in range(60):
         c_h, c_c = m_e * cp_h, m_w * cp_c
         c_min, c_max = min(c_h, c_c), max(c_h, c_c)
         q = ht.effectiveness_from_NTU(ua / c_min, c_min / c_max, subtype) * c_min * (t_eo - t_wi)
-        t_ho = t_from_h(h_eo - q / m_e)
+        t_ho = t_from_h(h_eo - q / m_e, x)
         t_co = t_from_h(h_w(t_wi) + q / m_w)
         cp_h, cp_c = q / m_e / (t_eo - t_ho), q / m_w / (t_co - t_wi)
     to_client = min(duty, q)
@@ -61,17 +65,19 @@ def engine_loop(duty, t_emax, flow_e, t_wi, flow_w, ua, subtype):
 def main():
     w = csv.DictWriter(sys.stdout, COLUMNS, extrasaction="raise", lineterminator="\n")
     src = "ht 1.2.0 effectiveness_from_NTU + CoolProp 8 PropsSI Water (IAPWS-95) at 3 bar(a)"
-    for case in [(800, 82, 60, 60, 40, 40, "counter", "counterflow"),
-                 (800, 82, 60, 70, 40, 40, "counter", "counterflow"),
-                 (800, 82, 60, 90, 40, 40, "counter", "counterflow"),
-                 (560, 88, 45, 65, 55, 70, "parallel", "parallel"),
-                 (800, 82, 60, 40, 80, 200, "counter", "counterflow")]:
-        duty, t_emax, fe, twi, fw, ua, arr, sub = case
-        r = engine_loop(duty, t_emax, fe, twi, fw, ua, sub)
+    for case in [(800, 82, 60, 60, 40, 40, "counter", "counterflow", 0.0),
+                 (800, 82, 60, 70, 40, 40, "counter", "counterflow", 0.0),
+                 (800, 82, 60, 90, 40, 40, "counter", "counterflow", 0.0),
+                 (560, 88, 45, 65, 55, 70, "parallel", "parallel", 0.0),
+                 (800, 82, 60, 40, 80, 200, "counter", "counterflow", 0.0),
+                 (600, 85, 50, 72, 30, 35, "counter", "counterflow", 0.3)]:
+        duty, t_emax, fe, twi, fw, ua, arr, sub, x = case
+        r = engine_loop(duty, t_emax, fe, twi, fw, ua, sub, x)
         for k, v in r.items():
-            w.writerow({"function": "HW_ENGINE_LOOP", "source": src,
+            w.writerow({"function": "HW_ENGINE_LOOP",
+                        "source": src + (f" and INCOMP::MEG[{x}] (Melinder 2010) engine side" if x else ""),
                         "locator": f"issue 11 model by hand: {duty} kW, engine in {t_emax} °C, water in {twi} °C, "
-                                   f"UA {ua} ({k})",
+                                   f"UA {ua} ({k})", "glycol_fraction": x or "",
                         "expected": f"{v:.10g}", "rtol": "2e-5", "atol": "1e-6", "duty_kw": duty,
                         "t_engine_in_max": t_emax, "engine_flow_m3_h": fe, "t_water_in": twi,
                         "water_flow_m3_h": fw, "ua_kw_k": ua, "arrangement": arr, "result": k})
