@@ -119,7 +119,8 @@ def main():
             wr2 = psychrolib.GetHumRatioFromRelHum(t1, rh, pa)
             dh2 = psychrolib.GetMoistAirEnthalpy(t2, wr2) - psychrolib.GetMoistAirEnthalpy(t1, wr2)
             v2 = duty * 1e3 / dh2 * psychrolib.GetMoistAirVolume(t1, wr2, pa) * 3600
-            w.writerow({"function": "DRYCOOLER_AIR_FLOW", "source": "psychrolib 2.5 (ASHRAE Handbook Fundamentals 2017 ch. 1)",
+            w.writerow({"function": "DRYCOOLER_AIR_FLOW",
+                        "source": "psychrolib 2.5 (ASHRAE Handbook Fundamentals 2017 ch. 1)",
                         "locator": f"{duty} kW, air {t1} to {t2} °C, RH {rh}, {p} bar(a)",
                         "expected": f"{v2:.10g}", "rtol": "1.5e-3", "note": "constant cp of the handbook's enthalpy",
                         "duty_kw": duty, "t_air_in": t1, "t_air_out": t2, "rh_ambient": rh, "p_ambient_bar": p})

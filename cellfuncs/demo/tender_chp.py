@@ -87,8 +87,10 @@ def _inputs(b: DemoBook) -> None:
     b.input("u_exhaust_w_m2_k", "U of the exhaust exchanger (gas side)", 60, "W/(m²·K)")
     b.input("exh_arrangement", "Exhaust exchanger arrangement", "counter", "", "drop-down", options=ARRANGEMENTS)
     b.input_heading("LT circuit and coolers (water-glycol)")
-    b.input("lt_glycol_fraction", "Glycol mass fraction of the LT and emergency circuits", 0.35, "-",
-            "ethylene glycol, frost protection")
+    b.input("lt_glycol_fraction", "Glycol mass fraction of the LT circuit", 0.35, "-",
+            "ethylene glycol, frost protection of the dry cooler")
+    b.input("ht_glycol_fraction", "Glycol mass fraction of the engine's HT circuit", 0.0, "-",
+            "the HT emergency cooler sits on this circuit")
     b.input("t_lt_hot", "LT coolant leaving the LT charge-air stage", 45, "°C")
     b.input("t_lt_cold", "LT coolant entering the LT charge-air stage", 40, "°C")
     b.input("t_air_out_lt", "Air leaving the LT dry cooler", 38, "°C")
@@ -181,7 +183,8 @@ def _sizing(b: DemoBook) -> None:
            '=HW_FLOW(q_client_design,t_water_in,t_water_out,0,"ethylene")', "m³/h", name="water_flow_m3_h",
            fmt="0.00")
     h.calc("Engine outlet of the HT circuit", '=HW_ENGINE_LOOP(q_ht_kw,t_engine_in_max,engine_flow_m3_h,'
-           't_water_in,water_flow_m3_h,0,"counter","t_engine_out",0,"ethylene")', "°C", name="t_engine_out",
+           't_water_in,water_flow_m3_h,0,"counter","t_engine_out",ht_glycol_fraction,"ethylene")', "°C",
+           name="t_engine_out",
            fmt="0.00")
     h.calc("Water after the HT plate exchanger", '=HW_CHAIN(t_water_in,water_flow_m3_h,q_ht_kw,0,"ethylene",1)',
            "°C", name="t_water_after_ht", fmt="0.00")
@@ -209,7 +212,7 @@ def _sizing(b: DemoBook) -> None:
            '" °C, the dry cooler gives no less than "&TEXT(t_ambient+min_approach_k,"0.0")&" °C")', "",
            name="lt_reachable")
     c.calc("HT emergency cooler UA for the whole HT duty", '=DRYCOOLER_UA(q_ht_kw,t_engine_out,t_engine_in_max,'
-           't_ambient,t_air_out_ht,"cross",lt_glycol_fraction,"ethylene")', "kW/K", name="ua_ht_dump", fmt="0.00")
+           't_ambient,t_air_out_ht,"cross",ht_glycol_fraction,"ethylene")', "kW/K", name="ua_ht_dump", fmt="0.00")
     c.calc("HT emergency cooler air flow", "=DRYCOOLER_AIR_FLOW(q_ht_kw,t_ambient,t_air_out_ht,rh_ambient,"
            "p_ambient_bar)", "m³/h", name="air_flow_ht", fmt="0")
 
@@ -233,7 +236,8 @@ def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
     rng = {k: f"$B${r}:$C${r}" for k, r in (("kinds", kinds), ("t_in", t_in), ("c", c_src), ("ua", ua),
                                              ("duty", duty))}
     base = (f"t_water_in,water_flow_m3_h,{rng['t_in']},{rng['c']},{rng['ua']},\"counter\",\"{{w}}\",0,"
-            f"\"ethylene\",{rng['kinds']},{rng['duty']},t_engine_in_max,engine_flow_m3_h,{{k}},0,\"ethylene\"")
+            f"\"ethylene\",{rng['kinds']},{rng['duty']},t_engine_in_max,engine_flow_m3_h,{{k}},ht_glycol_fraction,"
+            "\"ethylene\"")
     rows = {}
     for word, label, unit, fmt in (("duty", "heat to the client's water", "kW", "0.0"),
                                    ("dump", "heat to the dump cooler", "kW", "0.0"),

@@ -362,7 +362,8 @@ def chp_balance_check(fuel_power_kw: float, electrical_kw: float, heat_flows_kw,
     rest = fuel - out
     share = rest / fuel
     if share < BALANCE_OK_LOW:
-        return (f"FIRST-LAW VIOLATION: outputs exceed the fuel by {round(-rest)} kW ({round(-share * 100, 1) + 0.0:.1f} %)")
+        pct = round(-share * 100, 1) + 0.0
+        return f"FIRST-LAW VIOLATION: outputs exceed the fuel by {round(-rest)} kW ({pct:.1f} %)"
     kw, pct = round(rest), round(share * 100, 1) + 0.0  # + 0.0: no "-0.0"
     if share > BALANCE_OK_HIGH:
         return (f"CHECK: {kw} kW ({pct:.1f} %) of the fuel unaccounted, more than 5 %; "
