@@ -207,7 +207,7 @@ def test_cell_chain_layout():
     assert len(row) == 1 and len(row[0]) == 4
     col = cell_chain(60.0, 50.0, ((200.0,), (300.0,), (None,), (400.0,)))
     assert [c[0] for c in col] == row[0]
-    assert cell_chain(60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 2) == [[row[0][1]]]
+    assert cell_chain(60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 2) == row[0][1]
 
 
 def test_cell_chain_rate_outputs():
@@ -231,7 +231,7 @@ def test_chain_check_ok_and_findings():
     assert cell_chain_check(60.0, 50.0, ((200.0, 300.0, 400.0),), ((92.0, 95.0, 450.0),)) == "OK"
     # 60 °C, 50 m³/h: stage 1 at 1500 kW leaves about 86 °C, above the oil cooler's 80 - 5 = 75 °C
     text = cell_chain_check(60.0, 50.0, ((1500.0, 300.0),), ((80.0, 450.0),))
-    assert text.startswith("stage 1:") and "\n" not in text and "75" in text
+    assert text.startswith("stage 1 hot end:") and "\n" not in text and "75" in text
     text = cell_chain_check(60.0, 50.0, ((200.0, 300.0, 4000.0),), ((92.0, 95.0, 450.0),))
     assert text.startswith("stage 3:") and "133.52" in text
     # one hot_t_max for all stages
@@ -255,17 +255,17 @@ def test_chain_check_ok_and_findings():
     (lambda: hw_duty(0.0, 60.0, 90.0), "flow_m3h:"),
     (lambda: hw_duty(10.0, 160.0, 90.0), "t_in:"),
     (lambda: cell_chain(60.0, 10.0, ((2000.0, 3000.0),)), "duties_kw:"),
-    (lambda: cell_chain(140.0, 10.0, ((20.0,),)), "t_return:"),
-    (lambda: cell_chain(60.0, -1.0, ((20.0,),)), "flow_m3h:"),
+    (lambda: cell_chain(140.0, 10.0, ((20.0,),)), "t_water_in:"),
+    (lambda: cell_chain(60.0, -1.0, ((20.0,),)), "water_flow_m3_h:"),
     (lambda: cell_chain(60.0, 10.0, ((20.0,),), 0.0, "ethylene", 3), "stage:"),
     (lambda: cell_chain(60.0, 10.0, ((500.0,),), 0.3, "ethylene", None), "duties_kw:"),
     (lambda: cell_chain_rate(70.0, 5.0, ((450.0,),), ((10.0,),), ((30.0,),)), "ua_kw_k:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((450.0, 90.0),), ((10.0,),), ((30.0,),)), "hot_c_kw_k:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((None,),), ((10.0,),), ((30.0,),)), "hot_t_in:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((0.0,),), ((30.0,),)), "hot_c_kw_k:"),
+    (lambda: cell_chain_rate(70.0, 5.0, ((450.0, 90.0),), ((10.0,),), ((30.0,),)), "c_source_kw_k:"),
+    (lambda: cell_chain_rate(70.0, 5.0, ((None,),), ((10.0,),), ((30.0,),)), "t_source_in:"),
+    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((0.0,),), ((30.0,),)), "c_source_kw_k:"),
     (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((-3.0,),)), "ua_kw_k:"),
-    (lambda: cell_chain_check(60.0, 50.0, ((200.0, 300.0),), ((92.0, None),)), "hot_t_max:"),
-    (lambda: cell_chain_check(60.0, 50.0, ((200.0,),), ((92.0,),), -1.0), "min_approach:"),
+    (lambda: cell_chain_check(60.0, 50.0, ((200.0, 300.0),), ((92.0, None),)), "t_source_in:"),
+    (lambda: cell_chain_check(60.0, 50.0, ((200.0,),), ((92.0,),), -1.0), "min_approach_k:"),
 ])
 def test_bad_input_names_argument(call, name):
     with pytest.raises(CellInputError) as err:
@@ -280,7 +280,7 @@ def test_bad_input_names_argument(call, name):
     (lambda: cell_chain(60.0, 10.0, ((20.0, "x"),)), "duties_kw:"),
     (lambda: cell_chain(60.0, 10.0, ((20.0,),), 0.0, "ethylene", 1.5), "stage:"),
     (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "zigzag"), "arrangement:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "counter", "x"), "output:"),
+    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "counter", "x"), "result:"),
 ])
 def test_wrong_kind_names_argument(call, name):
     with pytest.raises(CellTypeError) as err:
@@ -405,7 +405,7 @@ def test_catalogue_calls_like_the_adapters():
     assert call("HW_CP", 70.0) == pytest.approx(hw_cp(70.0))
     t = call("HW_CHAIN", 60.0, 50.0, ((200.0, 300.0),))
     assert len(t[0]) == 2
-    assert call("HW_CHAIN", 60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 1) == [[t[0][0]]]
+    assert call("HW_CHAIN", 60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 1) == t[0][0]
     r = call("HW_CHAIN_RATE", 70.0, 40.0, ((92.0, 450.0),), ((20.95, 3.351),), ((60.0, 8.0),))
     assert 70 < r[0][0] < r[0][1]
     assert call("HW_CHAIN_CHECK", 60.0, 50.0, ((200.0,),), ((95.0,),)) == "OK"

@@ -16,7 +16,7 @@ from cellfuncs.catalogue.spec import REQUIRED, Arg, CellFunction
 __all__ = ["REQUIRED", "Arg", "CellFunction", "FAMILIES", "entries", "by_name"]
 
 #: family modules, in the order functions are listed in the docs
-FAMILIES = ("general", "hx", "gas", "gas_mn", "chargeair", "knock", "recovery", "steam", "site", "emissions")
+FAMILIES = ("general", "hx", "gas", "gas_mn", "chargeair", "knock", "recovery", "plant", "steam", "site", "emissions")
 
 _CACHE: dict = {}
 

@@ -13,6 +13,13 @@ CAT_ENG = "cellfuncs · engine"
 CAT_PLANT = "cellfuncs · plant balance"
 
 _REC = "cellfuncs.recovery."
+
+PES_FUELS = ("natural-gas", "biogas", "refinery-gas", "waste-gas", "oil", "bio-liquid")
+PES_HEAT_USES = ("hot-water", "steam", "exhaust")
+PES_FUEL_ALIASES = {"naturalgas": "natural-gas", "lng": "natural-gas", "lpg": "natural-gas",
+                    "biomethane": "natural-gas", "hydrogen": "refinery-gas", "syngas": "refinery-gas",
+                    "synthesisgas": "refinery-gas", "diesel": "oil", "heavyfueloil": "oil",
+                    "bioliquid": "bio-liquid", "landfillgas": "biogas", "sewagegas": "biogas"}
 _ENG = "cellfuncs.engine."
 
 GLYCOL_WORDS = ("ethylene", "propylene")
@@ -44,8 +51,8 @@ def _flow(name="flow_m3h", what="Hot-water volume flow, measured at the water's 
     return Arg(name, what, "m³/h")
 
 
-_CHAIN_FLOW = ("Circuit volume flow, measured at the water's inlet temperature, for a chain "
-               "the return temperature t_return")
+_CHAIN_FLOW = ("Client's circuit volume flow, measured at the water's inlet temperature "
+               "t_water_in (the return)")
 
 HOT_WATER = [
     CellFunction(
@@ -93,8 +100,8 @@ HOT_WATER = [
         description="Water temperature after each heat exchanger of a hot-water chain when the "
                     "listed duties are added in the listed order (array formula), or after stage "
                     "k. Boiling at 3 bar(a) (133.52 °C) is an error naming the stage.",
-        args=(_t("t_return", "Return temperature entering the first exchanger"),
-              _flow(what=_CHAIN_FLOW),
+        args=(_t("t_water_in", "Client's water entering the first exchanger (the return)"),
+              _flow("water_flow_m3_h", _CHAIN_FLOW),
               Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
                   "[kW]; a blank cell is a stage with no duty", kind="range"),
               _glycol_fraction(), _glycol(),
@@ -102,49 +109,76 @@ HOT_WATER = [
                   "returns every stage", kind="integer", default=None)),
         returns="water temperature after each stage, laid out like duties_kw [°C]",
         shape="array",
+        example=(60.0, 50.0, [[200.0, 300.0, 400.0]], 0.0, "ethylene", 2),
     ),
     CellFunction(
         name="HW_CHAIN_RATE",
         target=_REC + "chain:cell_chain_rate",
         category=CAT_HR,
-        description="Rates a hot-water chain of given exchangers (hot-side inlet temperature, "
-                    "capacity rate and UA per stage, in water-flow order) by epsilon-NTU; a stage "
-                    "colder than the water reaching it gives a negative duty. Array formula.",
-        args=(_t("t_return", "Return temperature entering the first exchanger"),
-              _flow(what=_CHAIN_FLOW),
-              Arg("hot_t_in", "Hot-side inlet temperature of each stage, one row or column [°C]",
-                  kind="range"),
-              Arg("hot_c_kw_k", "Hot-side capacity rate (mass flow times cp) of each stage, one "
-                  "row or column [kW/K]", kind="range"),
+        description="Rates a hot-water chain in water-flow order by epsilon-NTU: rated streams "
+                    "(source inlet, capacity rate, UA) and engine loops at fixed duty with a dump "
+                    "cooler (stage_kinds). Per stage, one stage, or a chain total.",
+        args=(_t("t_water_in", "Client's water entering the first exchanger (the return)"),
+              _flow("water_flow_m3_h", _CHAIN_FLOW),
+              Arg("t_source_in", "Source (hot-side) inlet temperature of each stage, one row or column "
+                  "[°C]; ignored for loop stages", kind="range"),
+              Arg("c_source_kw_k", "Source capacity rate (mass flow times cp) of each stage [kW/K]; "
+                  "ignored for loop stages", kind="range"),
               Arg("ua_kw_k", "UA of each stage, one row or column [kW/K]; blank or 0 = no exchange",
                   kind="range"),
               Arg("arrangement", "Flow arrangement of every stage", kind="option",
                   default="counter", options=ARRANGEMENT_WORDS, aliases=ARRANGEMENT_ALIASES),
-              Arg("output", "Result per stage: water outlet, duty or hot-side outlet", kind="option",
-                  default="t_out", options=("t_out", "duty", "t_hot_out"),
-                  aliases={"tout": "t_out", "thotout": "t_hot_out", "q": "duty"}),
-              _glycol_fraction(), _glycol()),
-        returns="per stage: water outlet temperature [°C], duty [kW] or hot-side outlet "
-                "temperature [°C], laid out like hot_t_in",
+              Arg("result", "Per stage: water out, duty to the water, source out, dump, water in, "
+                  "source in; or a chain total", kind="option",
+                  default="t_out", options=("t_out", "duty", "t_hot_out", "dump", "t_in", "t_hot_in",
+                                            "total_duty", "total_dump"),
+                  aliases={"tout": "t_out", "thotout": "t_hot_out", "q": "duty",
+                           "twaterout": "t_out", "tsourceout": "t_hot_out", "twaterin": "t_in",
+                           "tsourcein": "t_hot_in"}),
+              _glycol_fraction(), _glycol(),
+              Arg("stage_kinds", 'Kind of each stage, "stream" (rated stream) or "loop" (engine '
+                  "circuit at fixed duty with a dump cooler); blank = stream", kind="range",
+                  default=None),
+              Arg("duties_kw", "Duty the engine rejects into each loop stage [kW]; blank for streams",
+                  kind="range", default=None),
+              Arg("t_engine_in_max", "Maximum engine inlet temperature of each loop, one cell per stage "
+                  "or one for all [°C]", kind="range", default=None),
+              Arg("engine_flow_m3_h", "Engine circuit flow of each loop, measured at t_engine_in_max, "
+                  "one per stage or one for all [m³/h]", kind="range", default=None),
+              Arg("stage", "Return only this stage's value (1 = first); blank returns every stage",
+                  kind="integer", default=None),
+              Arg("engine_glycol_fraction", "Glycol mass fraction of the engine circuits, 0 for water",
+                  "-", default=0.0),
+              Arg("engine_glycol", "Glycol of the engine circuits", kind="option", default="ethylene",
+                  options=GLYCOL_WORDS, aliases=GLYCOL_ALIASES)),
+        returns="per stage: water or source temperature [°C], duty or dump [kW], laid out like "
+                "t_source_in; one stage's value, or a chain total [kW]",
         shape="array",
+        example=(60.0, 40.0, [[None, 445.0]], [[None, 5.0]], [[40.0, 10.0]], "counter", "dump", 0.0,
+                 "ethylene", [["loop", "stream"]], [[800.0, None]], [[82.0]], [[60.0]], 1),
     ),
     CellFunction(
         name="HW_CHAIN_CHECK",
         target=_REC + "chain:cell_chain_check",
         category=CAT_HR,
         description='"OK", or one line naming the first stage of a hot-water chain where the water '
-                    "would leave hotter than its source minus the minimum approach, or would boil; "
-                    "fix by reordering, splitting or bypassing.",
-        args=(_t("t_return", "Return temperature entering the first exchanger"),
-              _flow(what=_CHAIN_FLOW),
+                    "leaves above its source inlet minus the approach (hot end), the source leaves "
+                    "below the water entering plus the approach (cold end), or water boils.",
+        args=(_t("t_water_in", "Client's water entering the first exchanger (the return)"),
+              _flow("water_flow_m3_h", _CHAIN_FLOW),
               Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
                   "[kW]; a blank cell is a stage with no duty", kind="range"),
-              Arg("hot_t_max", "Hottest hot-side temperature of each stage's source, one cell per "
-                  "stage or one for all [°C]", kind="range"),
-              Arg("min_approach", "Smallest allowed difference between the source temperature "
-                  "and the water leaving the stage", "K", default=5.0),
-              _glycol_fraction(), _glycol()),
+              Arg("t_source_in", "Hot end: each source's inlet (hottest) temperature, for an engine "
+                  "loop its engine outlet; one cell per stage or one for all [°C]", kind="range"),
+              Arg("min_approach_k", "Smallest allowed temperature difference at either end of a "
+                  "stage", "K", default=5.0),
+              _glycol_fraction(), _glycol(),
+              Arg("t_source_out", "Cold end: each source's outlet (coldest) temperature, for an "
+                  "engine loop t_engine_in_max; blank = not checked [°C]", kind="range",
+                  default=None)),
         returns="\"OK\" or a one-line finding [text]",
+        example=(60.0, 50.0, [[200.0, 300.0, 400.0]], [[92.0, 95.0, 450.0]], 5.0, 0.0, "ethylene",
+                 [[82.0, 70.0, 120.0]]),
     ),
 ]
 
@@ -213,18 +247,31 @@ PLANT = [
         name="CHP_PES",
         target=_REC + "plant:chp_pes",
         category=CAT_PLANT,
-        description="Primary energy savings of cogeneration, 1 - 1/(η_th/ref_th + η_el/ref_el), per "
-                    "Directive 2012/27/EU Annex II. Reference efficiencies depend on fuel, year and "
-                    "country: take them from the applicable regulation.",
+        description="Primary energy savings of cogeneration, 1 - 1/(η_th/ref_th + η_el/ref_el), "
+                    "Directive 2012/27/EU Annex II; references given, or by fuel and year from Delegated "
+                    "Regulation (EU) 2015/2402 Annexes I-II, grid-loss factor of Annex IV.",
         args=(Arg("electrical_efficiency", "CHP electrical efficiency, electricity over fuel input "
                   "on net calorific value", "-"),
               Arg("thermal_efficiency", "CHP heat efficiency, useful heat over fuel input on net "
                   "calorific value", "-"),
-              Arg("ref_electrical_efficiency", "Harmonised reference efficiency for separate "
-                  "electricity production; depends on fuel, year and country (no default)", "-"),
-              Arg("ref_thermal_efficiency", "Harmonised reference efficiency for separate heat "
-                  "production; depends on fuel, year and country (no default)", "-")),
+              Arg("reference_electrical_efficiency", "Reference efficiency for separate electricity "
+                  "production; blank when fuel is given", "-", default=None),
+              Arg("reference_thermal_efficiency", "Reference efficiency for separate heat "
+                  "production; blank when fuel is given", "-", default=None),
+              Arg("fuel", "Take both references from Delegated Regulation (EU) 2015/2402 Annexes I and "
+                  "II for this fuel (figures from memory: check them)", kind="option", default=None,
+                  options=PES_FUELS, aliases=PES_FUEL_ALIASES),
+              Arg("construction_year", "Year the unit was built (Annex I), 1900 to 2023; later units "
+                  "fall under Delegated Regulation (EU) 2023/2104", "-", default=None),
+              Arg("heat_use", "Annex II column: hot water, steam or direct use of exhaust gases",
+                  kind="option", default="hot-water", options=PES_HEAT_USES,
+                  aliases={"water": "hot-water", "exhaustgas": "exhaust", "directexhaust": "exhaust"}),
+              Arg("voltage_kv", "Grid connection voltage; when given the electrical reference is "
+                  "corrected for avoided grid losses (Annex IV)", "kV", default=None),
+              Arg("onsite_share", "Share of the electricity consumed on site, 0 to 1 (Annex IV)", "-",
+                  default=0.0)),
         returns="primary energy savings [-] (high-efficiency cogeneration: >= 0.10)",
+        example=(0.42, 0.45, None, None, "natural-gas", 2020, "hot-water", 10.0, 0.2),
     ),
     CellFunction(
         name="CHP_BALANCE",
@@ -237,10 +284,11 @@ PLANT = [
               Arg("electrical_kw", "Electrical output", "kW"),
               Arg("heat_kw", "Useful heat outputs, any range, summed; blank cells are skipped [kW]",
                   kind="range"),
-              Arg("output", "Which fraction", kind="option", default="total",
+              Arg("result", "Which fraction", kind="option", default="total",
                   options=("total", "electrical", "thermal", "unaccounted"),
                   aliases={"losses": "unaccounted", "heat": "thermal", "power": "electrical"})),
         returns="fraction of the fuel power [-]",
+        example=(3650.0, 1560.0, [[560.0, 190.0, 820.0]], "unaccounted"),
     ),
 ]
 

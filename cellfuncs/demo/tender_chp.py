@@ -1,17 +1,21 @@
-"""Demo workbook ``tender_chp.xlsx``: a complete tender calculation for an invented plant.
+"""Demo workbook ``tender_chp.xlsx``: a tender calculation for an invented plant that adds up.
 
 Scenario (invented): the Ashcombe Vale district-heating plant, one gas-engine
-set on pipeline natural gas.  Gas properties and methane number → fuel flow →
-mixture flow → compressor outlet → HT/LT charge-air cooler duties and dew point
-→ knock margin → hot-water chain in the chosen order with its check → exhaust
-heat to the stack temperature → heat-exchanger areas → balance, heat rate and
-primary energy savings → a one-page summary.  A second sheet pipes the same
-sources in another order to show what the order does.
+set on pipeline natural gas.  The engine's declared datasheet (invented, at the
+site's design conditions) sits on its own sheet and adds up to the fuel input.
+Gas properties and methane number → fuel flow → charge air (declared duties
+beside the computed ones) → knock margin → the engine's HT circuit (jacket
+water, oil and HT charge-air stage) as one engine loop with one plate
+exchanger to the client, the exhaust exchanger after it, both rated in the
+chosen and the reversed order with the dump heat shown → the LT stage to a
+sized dry cooler at the design ambient, the HT emergency cooler sized for the
+whole HT duty → the first-law check of the plant → primary energy savings with
+the reference values of Delegated Regulation (EU) 2015/2402 → a summary.
 """
 
 from __future__ import annotations
 
-from cellfuncs.demo.book import DemoBook
+from cellfuncs.demo.book import _INPUT_FILL, DemoBook
 from cellfuncs.heat_transfer.arrangements import ARRANGEMENTS
 
 FILENAME = "tender_chp.xlsx"
@@ -19,225 +23,320 @@ EXPECTED_ERRORS: set = set()
 
 GAS = [("methane", 91.4), ("ethane", 4.9), ("propane", 1.1), ("n-butane", 0.25), ("isobutane", 0.2),
        ("n-pentane", 0.05), ("nitrogen", 1.3), ("carbon dioxide", 0.8)]
-SOURCES = ("oil cooler", "HT charge-air stage", "jacket water", "exhaust")
-ORDER_A = ("oil cooler", "jacket water", "HT charge-air stage", "exhaust")
-ORDER_B = ("exhaust", "jacket water", "HT charge-air stage", "oil cooler")
-AMB = "t_amb,rh_amb,p_amb"
-MIX = "lambda_air,gas_names,gas_amounts," + AMB
+SOURCES = ("HT engine circuit", "exhaust")
+ORDER = ("HT engine circuit", "exhaust")
+
+#: the invented engine's declared datasheet at the site's design conditions: (name, label, value, unit, note)
+DATASHEET = (
+    ("fuel_power_kw", "Fuel power (net calorific value)", 3650, "kW", ""),
+    ("electrical_kw", "Electrical output at the generator terminals", 1560, "kW", "42.7 % of the fuel"),
+    ("generator_efficiency", "Generator efficiency", 0.97, "-", ""),
+    ("q_jacket_kw", "Jacket-water heat", 340, "kW", "HT circuit"),
+    ("q_oil_kw", "Lube-oil heat", 160, "kW", "HT circuit"),
+    ("q_cac_ht_kw", "HT charge-air stage heat", 245, "kW", "HT circuit"),
+    ("q_cac_lt_kw", "LT charge-air stage heat", 103, "kW", "LT circuit, to the dry cooler"),
+    ("exhaust_flow_kg_h", "Exhaust mass flow (wet)", 8760, "kg/h", ""),
+    ("t_exhaust_in", "Exhaust temperature after the turbine", 445, "°C", ""),
+    ("q_exhaust_kw", "Exhaust heat, turbine outlet to 120 °C", 890, "kW", ""),
+    ("q_exhaust_loss_kw", "Exhaust loss, 120 °C to 25 °C (water as vapour)", 249, "kW", "net-CV balance"),
+    ("q_radiation_kw", "Radiation and convection from the engine", 55, "kW", "1.5 % of the fuel"),
+    ("t_engine_in_max", "HT circuit: maximum engine inlet temperature", 80, "°C", ""),
+    ("engine_flow_m3_h", "HT circuit: flow through the engine (at its inlet)", 60, "m³/h", ""),
+    ("air_ratio", "Air ratio (lambda)", 1.85, "-", ""),
+    ("p_boost_bar", "Boost pressure", 3.3, "bar(a)", ""),
+    ("isentropic_efficiency", "Compressor isentropic efficiency", 0.78, "-", ""),
+    ("compression_ratio", "Compression ratio (effective)", 12.5, "-", ""),
+    ("t_mixture_ht", "Mixture after the HT stage", 90, "°C", ""),
+    ("t_mixture", "Mixture after the LT stage (intake)", 50, "°C", ""),
+    ("t_mixture_ref", "Knock reference: mixture temperature", 50, "°C", "rated knock-free point"),
+    ("p_boost_bar_ref", "Knock reference: boost pressure", 3.3, "bar(a)", ""),
+    ("mn_ref", "Knock reference: methane number", 80, "-", ""),
+    ("speed_rpm", "Engine speed", 1500, "rpm", ""),
+    ("frequency_hz", "Grid frequency", 50, "Hz", ""),
+    ("displacement_l", "Total displacement", 64, "l", "16 cylinders × 4.0 l"),
+)
+#: the datasheet items that add up to the fuel power (the generator loss follows from its efficiency)
+BALANCE_ITEMS = ("electrical_kw", "q_jacket_kw", "q_oil_kw", "q_cac_ht_kw", "q_cac_lt_kw", "q_exhaust_kw",
+                 "q_exhaust_loss_kw", "q_radiation_kw")
+
+AMB = "t_ambient,rh_ambient,p_ambient_bar"
+MIX = "air_ratio,gas_names,gas_amounts," + AMB
+SHEET_RATED = "Rated order"
 
 
-def build(path: str) -> None:
-    b = DemoBook("Tender calculation — Ashcombe Vale district heating (invented)",
-                 "One gas-engine set on pipeline gas: fuel, charge air, knock margin, heat recovery in "
-                 "the chosen order, exhaust, exchanger areas, balance and primary energy savings.")
-    b.input_heading("Site")
-    b.input("t_amb", "Ambient air temperature (design day)", 30, "°C")
-    b.input("rh_amb", "Ambient relative humidity", 0.55, "-", "fraction 0–1")
-    b.input("p_amb", "Ambient pressure", 0.99, "bar(a)")
-    b.input_heading("Engine set (declared datasheet values; invented here)")
-    b.input("p_el", "Electrical output", 1560, "kW")
-    b.input("fuel_kw", "Fuel power (net calorific value)", 3650, "kW")
-    b.input("eta_gen", "Generator efficiency", 0.97, "-")
-    b.input("speed", "Engine speed", 1500, "rpm")
-    b.input("freq", "Grid frequency", 50, "Hz")
-    b.input("displacement", "Total displacement", 64, "l", "16 cylinders × 4.0 l")
-    b.input("lambda_air", "Air excess ratio lambda", 1.85, "-")
-    b.input("p_boost", "Boost pressure", 3.3, "bar(a)")
-    b.input("eta_c", "Compressor isentropic efficiency", 0.78, "-")
-    b.input("cr", "Compression ratio (effective)", 12.5, "-")
-    b.input("t_after_ht", "Mixture after the HT stage", 90, "°C")
-    b.input("t_intake", "Mixture after the LT stage (intake)", 50, "°C")
-    b.input("t_ref", "Knock reference: mixture temperature", 50, "°C", "rated knock-free point (datasheet)")
-    b.input("p_ref", "Knock reference: boost pressure", 3.3, "bar(a)")
-    b.input("mn_ref", "Knock reference: methane number", 80, "-")
-    b.input("q_oil", "Oil-cooler heat", 190, "kW")
-    b.input("t_oil_max", "Oil-cooler hot side (oil out of the engine)", 82, "°C")
-    b.input("q_jw", "Jacket-water heat", 560, "kW")
-    b.input("t_jw_in", "Jacket water from the engine", 92, "°C")
-    b.input("t_jw_out", "Jacket water back to the engine", 82, "°C")
-    b.input("t_exh", "Exhaust after the turbine", 445, "°C")
+def datasheet_values() -> dict:
+    """The declared datasheet as {name: value}."""
+    return {n: v for n, _label, v, _u, _note in DATASHEET}
+
+
+def _inputs(b: DemoBook) -> None:
+    b.input_heading("Site (design day)")
+    b.input("t_ambient", "Ambient air temperature (design day)", 30, "°C")
+    b.input("rh_ambient", "Ambient relative humidity", 0.55, "-", "fraction 0–1")
+    b.input("p_ambient_bar", "Ambient pressure", 0.99, "bar(a)")
     b.input_heading("Client's hot water and design choices")
-    b.input("t_return", "Hot-water return", 60, "°C")
-    b.input("t_flow", "Hot-water flow wanted", 90, "°C")
+    b.input("t_water_in", "Hot-water return (client's water entering the plant)", 60, "°C")
+    b.input("t_water_out", "Hot-water flow wanted", 90, "°C")
     b.input("t_stack", "Exhaust to the stack", 120, "°C",
             "about 120 °C keeps natural-gas exhaust clear of condensation (common practice)")
-    b.input("min_approach", "Minimum approach in each exchanger", 5, "K")
-    for i, src in enumerate(ORDER_A, start=1):
-        b.input(f"order_{i}", f"Heat source at stage {i} (chosen order)", src, "", "drop-down",
-                options=SOURCES)
-    b.input("u_plate", "U of the jacket-water plate exchanger", 3500, "W/(m²·K)")
-    b.input("u_exh", "U of the exhaust exchanger (gas side)", 60, "W/(m²·K)")
-    b.input("exh_arr", "Exhaust exchanger arrangement", "counter", "", "drop-down", options=ARRANGEMENTS)
-    b.input("ref_el", "Reference efficiency, separate electricity", 0.525, "-",
-            "harmonised value in force for fuel, year and country: look it up")
-    b.input("ref_th", "Reference efficiency, separate heat", 0.90, "-", "idem")
-    b.input_table("Gas analysis", ("component", "mol-%"), GAS, ("gas_names", "gas_amounts"), unit="mol-%",
+    b.input("min_approach_k", "Minimum approach at either end of each exchanger", 5, "K")
+    for i, src in enumerate(ORDER, start=1):
+        b.input(f"order_{i}", f"Heat source at stage {i} (chosen order)", src, "", "drop-down", options=SOURCES)
+    b.input("ua_margin", "Surface margin of the HT plate exchanger", 0.10, "-", "fraction of the UA needed")
+    b.input("u_plate_w_m2_k", "U of the HT plate exchanger", 3500, "W/(m²·K)")
+    b.input("u_exhaust_w_m2_k", "U of the exhaust exchanger (gas side)", 60, "W/(m²·K)")
+    b.input("exh_arrangement", "Exhaust exchanger arrangement", "counter", "", "drop-down", options=ARRANGEMENTS)
+    b.input_heading("LT circuit and coolers (water-glycol)")
+    b.input("lt_glycol_fraction", "Glycol mass fraction of the LT circuit", 0.35, "-",
+            "ethylene glycol, frost protection of the dry cooler")
+    b.input("ht_glycol_fraction", "Glycol mass fraction of the engine's HT circuit", 0.0, "-",
+            "the HT emergency cooler sits on this circuit")
+    b.input("t_lt_hot", "LT coolant leaving the LT charge-air stage", 45, "°C")
+    b.input("t_lt_cold", "LT coolant entering the LT charge-air stage", 40, "°C")
+    b.input("t_air_out_lt", "Air leaving the LT dry cooler", 38, "°C")
+    b.input("t_air_out_ht", "Air leaving the HT emergency cooler", 45, "°C")
+    b.input_heading("Primary energy savings (Delegated Regulation (EU) 2015/2402)")
+    b.input("pes_fuel", "Fuel of the reference values", "natural-gas", "", "Annexes I and II",
+            options=("natural-gas", "biogas", "refinery-gas", "waste-gas", "oil", "bio-liquid"))
+    b.input("construction_year", "Year of construction of the unit", 2023, "-",
+            "the regulation's values cover units built up to 2023 (figures from memory: check them)")
+    b.input("voltage_kv", "Grid connection voltage", 10, "kV", "Annex IV grid-loss correction")
+    b.input("onsite_share", "Share of the electricity used on site", 0.0, "-", "fraction 0–1")
+    b.input_table("Gas analysis", ("component", "mol-%"), GAS, ("gas_names", "gas_amounts"),
                   note="invented pipeline gas")
 
-    g = b.sheet("Gas and air", "Gas, fuel and charge air")
+
+def _datasheet(b: DemoBook) -> None:
+    d = b.sheet("Engine datasheet", "Declared datasheet of the invented engine (site design conditions)")
+    d.note("Invented figures, physically consistent: the items below add up to the fuel input (net calorific value).")
+    for name, label, value, unit, note in DATASHEET:
+        d.calc(label, value, unit, note, name=name, fmt="0.00" if isinstance(value, float) else "0")
+        d.ws.cell(d.row - 1, 2).fill = _INPUT_FILL
+    d.calc("Generator loss (electrical output / efficiency − output)", "=electrical_kw/generator_efficiency-"
+           "electrical_kw", "kW", name="q_generator_loss_kw", fmt="0.0")
+    d.calc("HT circuit duty (jacket + oil + HT charge air)", "=q_jacket_kw+q_oil_kw+q_cac_ht_kw", "kW",
+           name="q_ht_kw", fmt="0")
+    items = "+".join(BALANCE_ITEMS) + "+q_generator_loss_kw"
+    d.calc("Sum of the declared items", f"={items}", "kW", name="datasheet_sum", fmt="0.0")
+    d.calc("Datasheet closure (fuel − sum)", "=fuel_power_kw-datasheet_sum", "kW", name="datasheet_closure",
+           fmt="0.0")
+    r = d.table_row("declared heat flows [kW]", ["=q_jacket_kw", "=q_oil_kw", "=q_cac_ht_kw", "=q_cac_lt_kw",
+                                                 "=q_exhaust_kw"], "kW", "0")
+    d.calc("Datasheet check (first law)", f"=CHP_BALANCE_CHECK(fuel_power_kw,electrical_kw,$B${r}:$F${r},"
+           "q_exhaust_loss_kw,q_radiation_kw+q_generator_loss_kw)", "", name="datasheet_check")
+
+
+def _gas_and_air(b: DemoBook) -> None:
+    g = b.sheet("Gas and air", "Gas, fuel and charge air (computed beside the declared figures)")
     g.calc("Net calorific value (25/0)", '=GAS_CV(gas_names,gas_amounts,"net","volume","25/0")', "MJ/m³",
            name="cv_net", fmt="0.000")
     g.calc("Wobbe index (gross, 15/15)", '=GAS_WOBBE(gas_names,gas_amounts,"gross","15/15")', "MJ/m³",
            name="wobbe", fmt="0.000")
     g.calc("Methane number (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,gas_amounts)", "-",
            name="mn_gas", fmt="0.0")
-    g.calc("Fuel gas flow (25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_kw,"net","25/0")', "m³/h",
+    g.calc("Fuel gas flow (25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_power_kw,"net","25/0")', "m³/h",
            name="out_fuel_flow", result=True, fmt="0.0")
-    g.calc("Mixture mass flow", f'=CAC_MIXTURE_FLOW(fuel_kw,lambda_air,gas_names,gas_amounts,"net",{AMB},'
-           '"mixture")', "kg/h", name="mix_flow", fmt="0")
-    g.calc("Compressor outlet temperature", f"=TURBO_T_OUT(t_amb,p_amb,p_boost,eta_c,lambda_air,gas_names,"
-           "gas_amounts,t_amb,rh_amb)", "°C", name="t_comp_out", fmt="0.0")
-    g.calc("HT charge-air stage heat", f"=CAC_DUTY(mix_flow,t_comp_out,t_after_ht,p_boost,{MIX})", "kW",
-           name="q_ht", fmt="0.0")
-    g.calc("LT charge-air stage heat (dumped)", f"=CAC_DUTY(mix_flow,t_after_ht,t_intake,p_boost,{MIX})", "kW",
-           name="out_q_lt", fmt="0.0")
-    g.calc("Mixture dew point at boost pressure", f"=CAC_DEWPOINT(p_boost,{MIX})", "°C", name="dewpoint",
-           fmt="0.0")
-    g.calc("Condensation check", '=IF(t_intake>dewpoint,"OK: intake above the dew point",'
+    g.calc("Mixture mass flow", f'=CAC_MIXTURE_FLOW(fuel_power_kw,air_ratio,gas_names,gas_amounts,"net",{AMB},'
+           '"mixture")', "kg/h", name="mixture_flow_kg_h", fmt="0")
+    g.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_ambient,p_ambient_bar,p_boost_bar,"
+           "isentropic_efficiency,air_ratio,gas_names,gas_amounts,t_ambient,rh_ambient)", "°C",
+           name="t_compressor_out", fmt="0.0")
+    g.calc("HT charge-air stage heat, computed", f"=CAC_DUTY(mixture_flow_kg_h,t_compressor_out,t_mixture_ht,"
+           f"p_boost_bar,{MIX})", "kW", name="q_cac_ht_calc", fmt="0.0",
+           note="declared value on the datasheet sheet")
+    g.calc("LT charge-air stage heat, computed", f"=CAC_DUTY(mixture_flow_kg_h,t_mixture_ht,t_mixture,"
+           f"p_boost_bar,{MIX})", "kW", name="q_cac_lt_calc", fmt="0.0")
+    g.calc("Mixture dew point at boost pressure", f"=CAC_DEWPOINT(p_boost_bar,{MIX})", "°C",
+           name="t_dew_mixture", fmt="0.0")
+    g.calc("Condensation check", '=IF(t_mixture>t_dew_mixture,"OK: intake above the dew point",'
            '"CONDENSATE in the intake: separate and drain it")', "", name="dew_check")
-    g.calc("Knock margin at the intake temperature", '=KNOCK_MARGIN(t_intake,p_boost,cr,mn_gas,t_ref,p_ref,'
-           'mn_ref,cr,"K")', "K", name="out_knock_k", result=True, fmt="0.0")
-    g.calc("Methane number needed", "=KNOCK_MN_REQUIRED(t_intake,p_boost,cr,t_ref,p_ref,mn_ref,cr)", "-",
-           name="mn_needed", fmt="0.0")
-    g.calc("Shaft power", "=p_el/eta_gen", "kW", name="p_shaft", fmt="0")
-    g.calc("BMEP", "=ENGINE_BMEP(p_shaft,displacement,speed)", "bar", name="bmep", fmt="0.0")
-    g.calc("Generator pole pairs", "=GEN_POLE_PAIRS(freq,speed)", "-", name="pole_pairs", fmt="0")
+    g.calc("Knock margin at the intake temperature", "=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,"
+           'mn_gas,t_mixture_ref,p_boost_bar_ref,mn_ref,compression_ratio,"K")', "K", name="out_knock_k",
+           result=True, fmt="0.0")
+    g.calc("Methane number needed", "=KNOCK_MN_REQUIRED(t_mixture,p_boost_bar,compression_ratio,t_mixture_ref,"
+           "p_boost_bar_ref,mn_ref,compression_ratio)", "-", name="mn_needed", fmt="0.0")
+    g.calc("Shaft power", "=electrical_kw/generator_efficiency", "kW", name="shaft_kw", fmt="0")
+    g.calc("BMEP", "=ENGINE_BMEP(shaft_kw,displacement_l,speed_rpm,4)", "bar", name="bmep_bar", fmt="0.0")
+    g.calc("Generator pole pairs", "=GEN_POLE_PAIRS(frequency_hz,speed_rpm)", "-", name="pole_pairs", fmt="0")
 
-    e = b.sheet("Exhaust", "Exhaust heat to the stack")
-    e.calc("Exhaust mass flow (wet)", f'=EXH_FLOW(fuel_kw,lambda_air,gas_names,gas_amounts,"net",{AMB})', "kg/h",
-           name="exh_flow", fmt="0")
-    e.calc("Water dew point of the exhaust", f"=EXH_DEWPOINT(lambda_air,gas_names,gas_amounts,1.01325,{AMB})",
-           "°C", name="exh_dew", fmt="0.0")
-    e.calc("Exhaust heat from the turbine outlet to the stack", f"=EXH_HEAT(exh_flow,t_exh,t_stack,{MIX})", "kW",
-           name="q_exh", fmt="0.0")
-    e.calc("O2 in the exhaust (dry)", f'=EXH_COMPOSITION(lambda_air,gas_names,gas_amounts,"O2","dry",{AMB})',
+    e = b.sheet("Exhaust", "Exhaust: computed beside the declared figures")
+    e.calc("Exhaust mass flow (wet), computed", f'=EXH_FLOW(fuel_power_kw,air_ratio,gas_names,gas_amounts,"net",{AMB})',
+           "kg/h", name="exhaust_flow_calc", fmt="0", note="declared value on the datasheet sheet")
+    e.calc("Water dew point of the exhaust", f"=EXH_DEWPOINT(air_ratio,gas_names,gas_amounts,1.01325,{AMB})",
+           "°C", name="t_dew_exhaust", fmt="0.0")
+    e.calc("Exhaust heat, turbine outlet to the stack (declared flow)",
+           f"=EXH_HEAT(exhaust_flow_kg_h,t_exhaust_in,t_stack,{MIX})", "kW", name="q_exhaust_calc", fmt="0.0")
+    e.calc("Exhaust loss at the stack temperature, above 25 °C",
+           f"=EXH_LOSS(exhaust_flow_kg_h,t_stack,{MIX.replace('gas_amounts,', 'gas_amounts,25,')})", "kW",
+           name="q_exhaust_loss_calc", fmt="0.0")
+    e.calc("O2 in the exhaust (dry)", f'=EXH_COMPOSITION(air_ratio,gas_names,gas_amounts,"O2","dry",{AMB})',
            "-", name="o2_dry", fmt="0.00%")
-    e.calc("Exhaust capacity rate (mean)", "=q_exh/(t_exh-t_stack)", "kW/K", name="c_exh", fmt="0.000")
+    e.calc("Exhaust capacity rate (mean, turbine outlet to stack)", "=q_exhaust_calc/(t_exhaust_in-t_stack)",
+           "kW/K", name="c_exhaust_kw_k", fmt="0.000")
 
-    def chain_sheet(title, order_names, prefix):
-        s = b.sheet(title, f"Hot-water chain — {title.lower()}")
-        s.note("Heat sources in the order the client's water meets them; volume flow at the return temperature.")
-        src = s.row
-        s.table_row("source", list(SOURCES))
-        s.table_row("heat [kW]", ["=q_oil", "=q_ht", "=q_jw", "=q_exh"], "kW", "0.0")
-        s.table_row("hot-side temperature [°C]", ["=t_oil_max", "=t_after_ht", "=t_jw_out", "=t_stack"], "°C",
-                    "0.0")
-        s.note("Hot-side temperature = what the source's outlet must stay above (the colder end of each source).")
-        order_row = s.table_row("stage order", [f"={n}" for n in order_names])
-        duty_row = s.table_row("duty in that order", [
-            f"=INDEX($B${src + 1}:$E${src + 1},MATCH({chr(66 + j)}{order_row},$B${src}:$E${src},0))"
-            for j in range(4)], "kW", "0.0")
-        hot_row = s.table_row("hot-side temperature in that order", [
-            f"=INDEX($B${src + 2}:$E${src + 2},MATCH({chr(66 + j)}{order_row},$B${src}:$E${src},0))"
-            for j in range(4)], "°C", "0.0")
-        duties = f"$B${duty_row}:$E${duty_row}"
-        hots = f"$B${hot_row}:$E${hot_row}"
-        s.calc("Total heat to the client", f"=SUM({duties})", "kW", name=f"{prefix}_heat", fmt="0.0")
-        s.calc("Hot-water flow for the wanted flow temperature (at return temperature)",
-               f"=HW_FLOW({prefix}_heat,t_return,t_flow)", "m³/h", name=f"{prefix}_flow", fmt="0.00")
-        temps = s.array("Water temperature after each stage", f"=HW_CHAIN(t_return,{prefix}_flow,{duties})", 4,
-                        "°C", fmt="0.0")
-        sheet_q = "'" + title + "'"
-        short = prefix.replace("out_", "chain_")  # ranges are not case outputs (those are single cells)
-        b.name(f"{short}_temps", sheet_q + "!" + "$B${r}:$E${r}".format(r=s.row - 1))
-        b.name(f"{short}_order", sheet_q + "!" + f"$B${order_row}:$E${order_row}")
-        assert temps.endswith(f"B{s.row - 1}:E{s.row - 1}")
-        s.calc("Check of the order", f"=HW_CHAIN_CHECK(t_return,{prefix}_flow,{duties},{hots},min_approach)",
-               "", name=f"{prefix}_check")
-        return s
 
-    chain_sheet("Chosen order", [f"order_{i}" for i in range(1, 5)], "out_a")
-    bsheet = chain_sheet("Another order", [f'"{n}"' for n in ORDER_B], "out_b")
-    bsheet.note("The same sources in another order: the check says which stage would fail and why.")
+def _sizing(b: DemoBook) -> None:
+    h = b.sheet("Exchangers", "Sizing at the design point (HT circuit first, then exhaust)")
+    h.calc("Heat to the client at design (HT circuit + exhaust)", "=q_ht_kw+q_exhaust_calc", "kW",
+           name="q_client_design", fmt="0.0")
+    h.calc("Hot-water flow for the wanted flow temperature (at the return)",
+           '=HW_FLOW(q_client_design,t_water_in,t_water_out,0,"ethylene")', "m³/h", name="water_flow_m3_h",
+           fmt="0.00")
+    h.calc("Engine outlet of the HT circuit", '=HW_ENGINE_LOOP(q_ht_kw,t_engine_in_max,engine_flow_m3_h,'
+           't_water_in,water_flow_m3_h,0,"counter","t_engine_out",ht_glycol_fraction,"ethylene")', "°C",
+           name="t_engine_out",
+           fmt="0.00")
+    h.calc("Water after the HT plate exchanger", '=HW_CHAIN(t_water_in,water_flow_m3_h,q_ht_kw,0,"ethylene",1)',
+           "°C", name="t_water_after_ht", fmt="0.00")
+    h.calc("HT plate exchanger UA needed", '=HX_UA(q_ht_kw,t_engine_out,t_engine_in_max,t_water_in,'
+           't_water_after_ht,"counter")', "kW/K", name="ua_plate_needed", fmt="0.00")
+    h.calc("HT plate exchanger UA with the surface margin", "=ua_plate_needed*(1+ua_margin)", "kW/K",
+           name="ua_plate", fmt="0.00")
+    h.calc("HT plate exchanger area", "=ua_plate*1000/u_plate_w_m2_k", "m²", name="out_area_plate", result=True,
+           fmt="0.0")
+    h.calc("Exhaust exchanger UA needed", "=HX_UA(q_exhaust_calc,t_exhaust_in,t_stack,t_water_after_ht,"
+           "t_water_out,exh_arrangement)", "kW/K", name="ua_exhaust", fmt="0.00")
+    h.calc("Exhaust exchanger area (gas side)", "=HX_AREA(q_exhaust_calc,u_exhaust_w_m2_k,t_exhaust_in,t_stack,"
+           "t_water_after_ht,t_water_out,exh_arrangement)", "m²", name="out_area_exh", result=True, fmt="0.0")
 
-    h = b.sheet("Exchangers", "Heat-exchanger sizing (LMTD, F)")
-    h.note("Jacket-water plate exchanger: stage of the chosen order that takes the jacket water.")
-    # position of the jacket-water stage and the water temperatures around it
-    h.calc("Stage number of the jacket water", "=MATCH(\"jacket water\",chain_a_order,0)", "-",
-           name="jw_stage", fmt="0")
-    h.calc("Water into the jacket-water exchanger", "=IF(jw_stage=1,t_return,INDEX(chain_a_temps,"
-           "jw_stage-1))", "°C", name="jw_w_in", fmt="0.0")
-    h.calc("Water out of the jacket-water exchanger", "=INDEX(chain_a_temps,jw_stage)", "°C",
-           name="jw_w_out", fmt="0.0")
-    h.calc("Plate exchanger area", '=HX_AREA(q_jw,u_plate,t_jw_in,t_jw_out,jw_w_in,jw_w_out,"counter")', "m²",
-           name="out_area_plate", result=True, fmt="0.0")
-    h.calc("Stage number of the exhaust", "=MATCH(\"exhaust\",chain_a_order,0)", "-",
-           name="ex_stage", fmt="0")
-    h.calc("Water into the exhaust exchanger", "=IF(ex_stage=1,t_return,INDEX(chain_a_temps,"
-           "ex_stage-1))", "°C", name="ex_w_in", fmt="0.0")
-    h.calc("Water out of the exhaust exchanger", "=INDEX(chain_a_temps,ex_stage)", "°C",
-           name="ex_w_out", fmt="0.0")
-    h.calc("Exhaust exchanger LMTD (counterflow)", '=HX_LMTD(t_exh,t_stack,ex_w_in,ex_w_out,"counter")', "K",
-           name="ex_lmtd", fmt="0.0")
-    h.calc("F factor of the chosen arrangement", '=IF(exh_arr="counter",1,HX_F(t_exh,t_stack,ex_w_in,ex_w_out,'
-           'exh_arr))', "-", name="ex_f", fmt="0.000")
-    h.calc("Required UA (duty / (F · LMTD))", "=HX_UA(q_exh,t_exh,t_stack,ex_w_in,ex_w_out,exh_arr)", "kW/K",
-           name="ex_ua", fmt="0.00")
-    h.calc("Exhaust exchanger area (gas side)", "=HX_AREA(q_exh,u_exh,t_exh,t_stack,ex_w_in,ex_w_out,exh_arr)",
-           "m²", name="out_area_exh", result=True, fmt="0.0")
+    c = b.sheet("Coolers", "LT dry cooler and HT emergency cooler at the design ambient")
+    c.calc("LT dry cooler UA (crossflow)", '=DRYCOOLER_UA(q_cac_lt_kw,t_lt_hot,t_lt_cold,t_ambient,t_air_out_lt,'
+           '"cross",lt_glycol_fraction,"ethylene")', "kW/K", name="out_ua_lt_drycooler", fmt="0.00")
+    c.calc("LT dry cooler air flow (at the air inlet)", "=DRYCOOLER_AIR_FLOW(q_cac_lt_kw,t_ambient,t_air_out_lt,"
+           "rh_ambient,p_ambient_bar)", "m³/h", name="air_flow_lt", fmt="0")
+    c.calc("Mixture intake reachable at the design ambient?",
+           '=IF(AND(t_lt_cold>=t_ambient+min_approach_k,t_mixture>=t_lt_cold+min_approach_k),'
+           '"OK: "&TEXT(t_mixture,"0")&" °C intake from "&TEXT(t_lt_cold,"0")&" °C coolant, "&'
+           'TEXT(t_ambient,"0")&" °C air",'
+           '"NOT REACHABLE: intake needs coolant at or below "&TEXT(t_mixture-min_approach_k,"0.0")&'
+           '" °C, the dry cooler gives no less than "&TEXT(t_ambient+min_approach_k,"0.0")&" °C")', "",
+           name="lt_reachable")
+    c.calc("HT emergency cooler UA for the whole HT duty", '=DRYCOOLER_UA(q_ht_kw,t_engine_out,t_engine_in_max,'
+           't_ambient,t_air_out_ht,"cross",ht_glycol_fraction,"ethylene")', "kW/K", name="ua_ht_dump", fmt="0.00")
+    c.calc("HT emergency cooler air flow", "=DRYCOOLER_AIR_FLOW(q_ht_kw,t_ambient,t_air_out_ht,rh_ambient,"
+           "p_ambient_bar)", "m³/h", name="air_flow_ht", fmt="0")
 
-    h.calc("Plate exchanger UA", '=HX_UA(q_jw,t_jw_in,t_jw_out,jw_w_in,jw_w_out,"counter")', "kW/K",
-           name="jw_ua", fmt="0.00")
 
-    rt = b.sheet("Rated order", "The sized exchangers rated in both orders (HW_CHAIN_RATE)")
-    rt.note("Jacket-water plate exchanger and exhaust exchanger as sized above, on the hot-water flow of "
-            "the chosen order, entering at the return temperature.")
-    rt.note("A stage whose source is colder than the water reaching it gets a negative duty: the water "
-            "would heat the source.")
-    first = rt.table_row("stage", ["jacket water", "exhaust"])
-    rt.table_row("hot inlet [°C]", ["=t_jw_in", "=t_exh"], "°C", "0.0")
-    rt.table_row("hot capacity rate [kW/K]", ["=q_jw/(t_jw_in-t_jw_out)", "=c_exh"], "kW/K", "0.000")
-    rt.table_row("UA [kW/K]", ["=jw_ua", "=ex_ua"], "kW/K", "0.00")
-    rt.table_row("stage (other order)", ["exhaust", "jacket water"])
-    rt.table_row("hot inlet [°C]", ["=t_exh", "=t_jw_in"], "°C", "0.0")
-    rt.table_row("hot capacity rate [kW/K]", ["=c_exh", "=q_jw/(t_jw_in-t_jw_out)"], "kW/K", "0.000")
-    rt.table_row("UA [kW/K]", ["=ex_ua", "=jw_ua"], "kW/K", "0.00")
+def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
+    """One rated chain (two stages) on the Rated-order sheet; per-cell HW_CHAIN_RATE, no array formulas."""
+    s.heading(title)
+    src = s.table_row("heat source", order_cells)
+    cols = ("B", "C")
 
-    def rng(r):
-        return f"$B${r}:$C${r}"
+    def per(expr_exhaust, expr_loop):
+        return [f'=IF({c}{src}="exhaust",{expr_exhaust},{expr_loop})' for c in cols]
 
-    a_t, a_c, a_ua = rng(first + 1), rng(first + 2), rng(first + 3)
-    b_t, b_c, b_ua = rng(first + 5), rng(first + 6), rng(first + 7)
-    rt.heading("Jacket water first, then exhaust")
-    rt.array("duty per stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{a_t},{a_c},{a_ua},"counter","duty")', 2,
-             "kW", fmt="0.0")
-    rt.array("water after each stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{a_t},{a_c},{a_ua},"counter","t_out")',
-             2, "°C", fmt="0.0")
-    rt.heading("Exhaust first, then jacket water")
-    rt.array("duty per stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{b_t},{b_c},{b_ua},"counter","duty")', 2,
-             "kW", fmt="0.0")
-    rt.array("water after each stage", f'=HW_CHAIN_RATE(t_return,out_a_flow,{b_t},{b_c},{b_ua},"counter","t_out")',
-             2, "°C", fmt="0.0")
-    rt.note("In the second order the exhaust heats the water first; the jacket-water exchanger then sees "
-            "hotter water and recovers less (or, past the jacket temperature, would heat the engine).")
+    kinds = s.table_row("stage kind", per('"stream"', '"loop"'))
+    # a loop's source inlet and capacity rate, and a stream's declared heat, are shown but not used
+    t_in = s.table_row("source in [°C] (used for streams)", per("t_exhaust_in", "t_engine_out"), "°C", "0.0")
+    c_src = s.table_row("source capacity rate [kW/K] (used for streams)",
+                        per("c_exhaust_kw_k", "q_ht_kw/(t_engine_out-t_engine_in_max)"), "kW/K", "0.000")
+    ua = s.table_row("UA [kW/K]", per("ua_exhaust", "ua_plate"), "kW/K", "0.00")
+    duty = s.table_row("declared heat [kW] (used for loops)", per("q_exhaust_kw", "q_ht_kw"), "kW", "0.0")
+    rng = {k: f"$B${r}:$C${r}" for k, r in (("kinds", kinds), ("t_in", t_in), ("c", c_src), ("ua", ua),
+                                             ("duty", duty))}
+    base = (f"t_water_in,water_flow_m3_h,{rng['t_in']},{rng['c']},{rng['ua']},\"counter\",\"{{w}}\",0,"
+            f"\"ethylene\",{rng['kinds']},{rng['duty']},t_engine_in_max,engine_flow_m3_h,{{k}},ht_glycol_fraction,"
+            "\"ethylene\"")
+    rows = {}
+    for word, label, unit, fmt in (("duty", "heat to the client's water", "kW", "0.0"),
+                                   ("dump", "heat to the dump cooler", "kW", "0.0"),
+                                   ("t_in", "water entering", "°C", "0.0"),
+                                   ("t_out", "water leaving", "°C", "0.0"),
+                                   ("t_hot_in", "source entering (loop: engine outlet)", "°C", "0.0"),
+                                   ("t_hot_out", "source leaving the exchanger", "°C", "0.0")):
+        rows[word] = s.table_row(label, [f"=HW_CHAIN_RATE({base.format(w=word, k=k)})" for k in (1, 2)], unit,
+                                 fmt)
+    # the source's cold end: the engine inlet limit for a loop, the rated gas outlet for the exhaust
+    cold = s.table_row("source outlet limit for the check", [
+        f'=IF({c}{src}="exhaust",{c}{rows["t_hot_out"]},t_engine_in_max)' for c in cols], "°C", "0.0")
+    q = f"$B${rows['duty']}:$C${rows['duty']}"
+    s.calc("Heat to the client", f"=SUM({q})", "kW", name=f"{prefix}_heat", fmt="0.0")
+    s.calc("Dump heat of the HT circuit", f"=SUM($B${rows['dump']}:$C${rows['dump']})", "kW",
+           name=f"{prefix}_dump", fmt="0.0")
+    s.calc("Water to the client", f"=$C${rows['t_out']}", "°C", name=f"{prefix}_t_flow", fmt="0.0")
+    s.calc("Exhaust leaving its exchanger", f'=IF($B${src}="exhaust",$B${rows["t_hot_out"]},$C${rows["t_hot_out"]})',
+           "°C", name=f"{prefix}_t_stack", fmt="0.0")
+    s.calc("Check of both ends of each stage", f"=HW_CHAIN_CHECK(t_water_in,water_flow_m3_h,{q},"
+           f"$B${rows['t_hot_in']}:$C${rows['t_hot_in']},min_approach_k,0,\"ethylene\",$B${cold}:$C${cold})", "",
+           name=f"{prefix}_check")
+    return rows
 
-    p = b.sheet("Balance", "Plant balance")
-    p.table_row("heat recovered [kW]", ["=q_oil", "=q_ht", "=q_jw", "=q_exh"], "kW", "0.0")
-    heat = f"'Balance'!$B${p.row - 1}:$E${p.row - 1}"
-    p.calc("Electrical efficiency", f'=CHP_BALANCE(fuel_kw,p_el,{heat},"electrical")', "-", name="eta_el",
-           fmt="0.0%")
-    p.calc("Thermal efficiency", f'=CHP_BALANCE(fuel_kw,p_el,{heat},"thermal")', "-", name="eta_th", fmt="0.0%")
-    p.calc("Total efficiency", f'=CHP_BALANCE(fuel_kw,p_el,{heat},"total")', "-", name="out_eta_total",
-           result=True, fmt="0.0%")
-    p.calc("Unaccounted (losses, LT heat, radiation)", f'=CHP_BALANCE(fuel_kw,p_el,{heat},"unaccounted")', "-",
-           fmt="0.0%")
+
+def _rated(b: DemoBook) -> None:
+    s = b.sheet(SHEET_RATED, "The sized exchangers rated in both orders (HW_CHAIN_RATE with an engine loop)")
+    s.note("The HT circuit is an engine loop: it rejects its declared duty, the plate exchanger passes what the "
+           "client's water takes, the dump cooler the rest.")
+    s.note("The exhaust is a rated stream (turbine-outlet temperature, mean capacity rate, UA); flow at the "
+           "return temperature.")
+    _order_block(s, "Chosen order (Inputs: order_1, order_2)", ["=order_1", "=order_2"], "rated_a")
+    _order_block(s, "Reversed order", [ORDER[1], ORDER[0]], "rated_b")
+    s.note("Reversed, the exhaust heats the water first: the HT plate exchanger then sees warmer water, the "
+           "engine loop gives less and its dump cooler takes the rest; the exhaust leaves colder.")
+
+
+def _balance(b: DemoBook) -> None:
+    p = b.sheet("Balance", "Plant balance on the net calorific value (chosen order)")
+    p.table_row("heat flows leaving the plant [kW]", ["=rated_a_heat", "=rated_a_dump", "=q_cac_lt_kw"], "kW",
+                "0.0")
+    heat = f"'Balance'!$B${p.row - 1}:$D${p.row - 1}"
+    p.note("Heat to the client, dump heat of the HT circuit, LT charge-air heat to the dry cooler.")
+    p.calc("Exhaust loss at the rated stack temperature, above 25 °C",
+           f"=EXH_LOSS(exhaust_flow_kg_h,rated_a_t_stack,{MIX.replace('gas_amounts,', 'gas_amounts,25,')})", "kW",
+           name="out_exhaust_loss", fmt="0.0")
+    p.calc("Radiation and generator loss (declared)", "=q_radiation_kw+q_generator_loss_kw", "kW",
+           name="other_losses", fmt="0.0")
+    p.calc("Balance check", f"=CHP_BALANCE_CHECK(fuel_power_kw,electrical_kw,{heat},out_exhaust_loss,other_losses)",
+           "", name="out_balance_check")
+    p.calc("Fuel power", "=fuel_power_kw", "kW", name="out_fuel_power", fmt="0")
+    p.calc("Electrical output", "=electrical_kw", "kW", name="out_electrical", fmt="0")
+    p.calc("Heat to the client", "=rated_a_heat", "kW", name="out_heat_to_client", fmt="0")
+    p.calc("Heat dumped (HT dump cooler + LT dry cooler)", "=rated_a_dump+q_cac_lt_kw", "kW",
+           name="out_dump_heat", fmt="0")
+    p.calc("Electrical efficiency", '=CHP_BALANCE(fuel_power_kw,electrical_kw,out_heat_to_client,"electrical")', "-",
+           name="eta_el", fmt="0.0%")
+    p.calc("Thermal efficiency (useful heat)", '=CHP_BALANCE(fuel_power_kw,electrical_kw,out_heat_to_client,'
+           '"thermal")', "-", name="eta_th", fmt="0.0%")
+    p.calc("Total efficiency", '=CHP_BALANCE(fuel_power_kw,electrical_kw,out_heat_to_client,"total")', "-",
+           name="out_eta_total", result=True, fmt="0.0%")
     p.calc("Heat rate", "=CHP_HEAT_RATE(eta_el)", "kJ/kWh", name="out_heat_rate", fmt="0")
-    p.calc("Primary energy savings (Directive 2012/27/EU Annex II)", "=CHP_PES(eta_el,eta_th,ref_el,ref_th)",
-           "-", name="out_pes", result=True, fmt="0.0%")
+    p.calc("Primary energy savings (Directive 2012/27/EU Annex II)", '=CHP_PES(eta_el,eta_th,"","",pes_fuel,'
+           'construction_year,"hot-water",voltage_kv,onsite_share)', "-", name="out_pes", result=True, fmt="0.0%",
+           note="references of Delegated Regulation (EU) 2015/2402, Annex IV grid-loss factor")
+
+
+def build(path: str) -> None:
+    b = DemoBook("Tender calculation — Ashcombe Vale district heating (invented)",
+                 "One gas-engine set on pipeline gas: a declared datasheet that adds up, fuel, charge air, knock "
+                 "margin, engine loop and exhaust in the chosen order, coolers, a first-law check and PES.")
+    _inputs(b)
+    _datasheet(b)
+    _gas_and_air(b)
+    _sizing(b)
+    _rated(b)
+    _balance(b)
 
     r = b.sheet("Results", "Tender summary — Ashcombe Vale district heating (invented)")
-    r.calc("Electrical output", "=p_el", "kW", fmt="0")
-    r.calc("Fuel power (net)", "=fuel_kw", "kW", fmt="0")
+    r.calc("Balance check (first law, net calorific value)", "=out_balance_check", "")
+    r.calc("Datasheet check", "=datasheet_check", "")
+    r.calc("Electrical output", "=out_electrical", "kW", fmt="0")
+    r.calc("Fuel power (net)", "=out_fuel_power", "kW", fmt="0")
     r.calc("Fuel gas flow (25/0)", "=out_fuel_flow", "m³/h", result=True, fmt="0.0")
     r.calc("Methane number of the gas / needed", '=TEXT(mn_gas,"0.0")&" / "&TEXT(mn_needed,"0.0")', "-")
     r.calc("Knock margin at the intake temperature", "=out_knock_k", "K", result=True, fmt="0.0")
     r.calc("Charge-air condensation", "=dew_check", "")
-    r.calc("Heat to the client (chosen order)", "=out_a_heat", "kW", result=True, fmt="0")
-    r.calc("Hot-water flow", "=out_a_flow", "m³/h", fmt="0.0")
-    r.calc("Check of the chosen order", "=out_a_check", "")
-    r.calc("LT charge-air heat to dump", "=out_q_lt", "kW", fmt="0")
-    r.calc("Plate exchanger area (jacket water)", "=out_area_plate", "m²", fmt="0.0")
+    r.calc("Heat to the client (chosen order)", "=out_heat_to_client", "kW", result=True, fmt="0")
+    r.calc("Heat dumped (HT dump cooler + LT dry cooler)", "=out_dump_heat", "kW", result=True, fmt="0")
+    r.calc("Hot-water flow / temperature to the client", '=TEXT(water_flow_m3_h,"0.0")&" m³/h / "&'
+           'TEXT(rated_a_t_flow,"0.0")&" °C"', "")
+    r.calc("Check of the chosen order", "=rated_a_check", "")
+    r.calc("Exhaust to the stack (rated) / loss", '=TEXT(rated_a_t_stack,"0.0")&" °C / "&TEXT(out_exhaust_loss,'
+           '"0")&" kW"', "")
+    r.calc("HT plate exchanger area", "=out_area_plate", "m²", fmt="0.0")
     r.calc("Exhaust exchanger area (gas side)", "=out_area_exh", "m²", fmt="0.0")
+    r.calc("LT dry cooler UA / air flow", '=TEXT(out_ua_lt_drycooler,"0.0")&" kW/K / "&TEXT(air_flow_lt,"0")&'
+           '" m³/h"', "")
+    r.calc("Mixture intake at the design ambient", "=lt_reachable", "")
     r.calc("Electrical / thermal / total efficiency",
            '=TEXT(eta_el,"0.0%")&" / "&TEXT(eta_th,"0.0%")&" / "&TEXT(out_eta_total,"0.0%")', "-")
     r.calc("Primary energy savings", "=out_pes", "-", result=True, fmt="0.0%")
@@ -252,6 +351,8 @@ def summary(v: dict) -> list:
         return f"{x:.{d}f}" if isinstance(x, float) else str(x)
 
     return [f"fuel {f('out_fuel_flow')} m³/h; knock margin {f('out_knock_k')} K; heat to client "
-            f"{f('out_a_heat', 0)} kW; PES {f('out_pes', 3)}; total efficiency {f('out_eta_total', 3)}",
-            f"chosen order: {v.get('out_a_check')}",
-            f"other order:  {v.get('out_b_check')}"]
+            f"{f('out_heat_to_client', 0)} kW; dumped {f('out_dump_heat', 0)} kW; PES {f('out_pes', 3)}; "
+            f"total efficiency {f('out_eta_total', 3)}",
+            f"balance: {v.get('out_balance_check')}",
+            f"chosen order: {v.get('rated_a_check')}",
+            f"reversed order: {v.get('rated_b_check')}; HT dump {f('rated_b_dump', 0)} kW"]

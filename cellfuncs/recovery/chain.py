@@ -1,6 +1,6 @@
 """Hot-water chains: a circuit that picks up heat in several exchangers in series.
 
-The water returns from the client at ``t_return`` and passes the exchangers in
+The water returns from the client at ``t_water_in`` and passes the exchangers in
 the order listed (for example oil cooler, HT charge-air stage, jacket water,
 exhaust).  :func:`chain_temperatures` adds given duties in that order;
 :func:`rate_chain` and :func:`rate_chain_water` rate given exchangers (hot-side
@@ -105,16 +105,20 @@ def rate_stage(t_cold_in: float, c_cold: float, t_hot_in: float, c_hot: float, u
     return q, t_cold_in + q / c_cold, t_hot_in - q / c_hot
 
 
-def _stage_data(hot_t_in, hot_c_kw_k, ua_kw_k) -> list:
-    """Validate per-stage hot-side data (lists of float or None)."""
+def _stage_data(hot_t_in, hot_c_kw_k, ua_kw_k, loops=()) -> list:
+    """Validate per-stage hot-side data (lists of float or None); stages in ``loops`` are skipped."""
     n = len(hot_t_in)
     if len(hot_c_kw_k) != n:
-        raise CellInputError(f"hot_c_kw_k: {len(hot_c_kw_k)} cells given, hot_t_in has {n}; give one per stage")
+        raise CellInputError(f"c_source_kw_k: {len(hot_c_kw_k)} cells given, t_source_in has {n}; "
+                             "give one per stage")
     if len(ua_kw_k) != n:
-        raise CellInputError(f"ua_kw_k: {len(ua_kw_k)} cells given, hot_t_in has {n}; give one per stage")
+        raise CellInputError(f"ua_kw_k: {len(ua_kw_k)} cells given, t_source_in has {n}; give one per stage")
     out = []
     for k, (th, ch, ua) in enumerate(zip(hot_t_in, hot_c_kw_k, ua_kw_k), start=1):
-        for name, v in (("hot_t_in", th), ("hot_c_kw_k", ch), ("ua_kw_k", ua)):
+        if k in loops:
+            out.append((th, ch, ua))
+            continue
+        for name, v in (("t_source_in", th), ("c_source_kw_k", ch), ("ua_kw_k", ua)):
             if v is not None and not (isinstance(v, (int, float)) and not isinstance(v, bool)):
                 raise CellTypeError(f"{name}: stage {k} {v!r} is not a number")
             if v is not None and not math.isfinite(v):
@@ -126,13 +130,13 @@ def _stage_data(hot_t_in, hot_c_kw_k, ua_kw_k) -> list:
         if ua < 0:
             raise CellInputError(f"ua_kw_k: {s} {fmt(ua)} kW/K is below 0 kW/K")
         if th is None:
-            raise CellInputError(f"hot_t_in: {s} is blank but has ua_kw_k {fmt(ua)} kW/K")
+            raise CellInputError(f"t_source_in: {s} is blank but has ua_kw_k {fmt(ua)} kW/K")
         if ch is None:
-            raise CellInputError(f"hot_c_kw_k: {s} is blank but has ua_kw_k {fmt(ua)} kW/K")
+            raise CellInputError(f"c_source_kw_k: {s} is blank but has ua_kw_k {fmt(ua)} kW/K")
         if ch <= 0:
-            raise CellInputError(f"hot_c_kw_k: {s} {fmt(ch)} kW/K must be above 0 kW/K")
+            raise CellInputError(f"c_source_kw_k: {s} {fmt(ch)} kW/K must be above 0 kW/K")
         if th <= -273.15:
-            raise CellInputError(f"hot_t_in: {s} {fmt(th)} °C is not above absolute zero")
+            raise CellInputError(f"t_source_in: {s} {fmt(th)} °C is not above absolute zero")
         out.append((th, ch, ua))
     return out
 
@@ -188,7 +192,7 @@ def _beyond(name: str, k: int, h: float, bounds: tuple, verb: str) -> None:
         t_est = t_hi + (h - h_hi) / cp_hi
         raise CellInputError(
             f"{name}: stage {k} {verb} the {label} to about {fmt(round(t_est, 1))} °C, above "
-            f"{fmt(round(t_hi, 2))} °C ({why}); raise flow_m3h or reorder the stages")
+            f"{fmt(round(t_hi, 2))} °C ({why}); raise water_flow_m3_h or reorder the stages")
     if h < h_lo:
         t_est = t_lo - (h_lo - h) / cp_lo
         raise CellInputError(
@@ -196,92 +200,191 @@ def _beyond(name: str, k: int, h: float, bounds: tuple, verb: str) -> None:
             f"{fmt(round(t_lo, 2))} °C (freezing)")
 
 
-def rate_chain_water(t_return: float, flow_m3h: float, hot_t_in, hot_c_kw_k, ua_kw_k,
+def _water_side(t_water_in, water_flow_m3_h, glycol_fraction, glycol):
+    """Mass flow [kg/s] and inlet enthalpy [kJ/kg] of the client's circuit, errors naming our arguments."""
+    check_range("water_flow_m3_h", water_flow_m3_h, 0.0, None, "m³/h", lo_open=True)
+    m = _w.mass_flow(water_flow_m3_h, t_water_in, glycol_fraction, glycol, t_name="t_water_in")
+    h = _w.enthalpy(t_water_in, glycol_fraction, glycol, name="t_water_in")
+    return m, h
+
+
+def _rate_stream(k, t, h, m, th, ch, ua, arrangement, bounds, glycol_fraction, glycol) -> dict:
+    """One rated stream stage; the mean cp is iterated until ε-NTU duty and enthalpy rise agree."""
+    cp = _w.hw_cp(t, glycol_fraction, glycol)
+    if ua == 0:
+        return {"kind": "stream", "duty": 0.0, "dump": 0.0, "t_in": t, "t_out": t, "t_hot_in": th,
+                "t_hot_out": th, "c_water": m * cp, "h_out": h}
+    t_out = t
+    for _ in range(30):
+        q = rate_stage(t, m * cp, th, ch, ua, arrangement)[0]
+        h_out = h + q / m
+        _beyond("ua_kw_k", k, h_out, bounds, "heats" if q >= 0 else "cools")
+        t_out = _w.temperature_from_enthalpy(h_out, t + q / (m * cp), glycol_fraction, glycol)
+        cp_new = (h_out - h) / (t_out - t) if abs(t_out - t) > 1e-7 else cp
+        done = abs(cp_new - cp) <= 1e-12 * cp
+        cp = cp_new
+        if done:
+            break
+    # final pass with the converged mean cp: duty, hot outlet and water outlet agree
+    q, _tc, t_hot_out = rate_stage(t, m * cp, th, ch, ua, arrangement)
+    h_out = h + q / m
+    _beyond("ua_kw_k", k, h_out, bounds, "heats" if q >= 0 else "cools")
+    t_out = _w.temperature_from_enthalpy(h_out, t_out, glycol_fraction, glycol)
+    return {"kind": "stream", "duty": q, "dump": 0.0, "t_in": t, "t_out": t_out, "t_hot_in": th,
+            "t_hot_out": t_hot_out, "c_water": m * cp, "h_out": h_out}
+
+
+#: stage-kind words of HW_CHAIN_RATE (blank = "stream")
+STAGE_KINDS = ("stream", "loop")
+_KIND_ALIASES = {"rated": "stream", "source": "stream", "enginecircuit": "loop", "engineloop": "loop",
+                 "engine": "loop", "circuit": "loop"}
+
+
+def _kind_word(k: int, v) -> str:
+    if v is None or (isinstance(v, str) and v.strip() == ""):
+        return "stream"
+    if isinstance(v, str):
+        w = "".join(v.split()).lower()
+        w = _KIND_ALIASES.get(w, w)
+        if w in STAGE_KINDS:
+            return w
+    raise CellTypeError(f'stage_kinds: stage {k} {v!r} is not "stream" or "loop"')
+
+
+def _per_stage(name: str, values, n: int) -> list:
+    """A per-stage list of n cells: one cell for all, or one per stage (None when omitted)."""
+    if values is None:
+        return [None] * n
+    values = list(values)
+    if len(values) == 1 and n > 1:
+        return values * n
+    if len(values) != n:
+        raise CellInputError(f"{name}: {len(values)} cells given, the chain has {n} stages; "
+                             "give one per stage or one for all")
+    return values
+
+
+def rate_chain_water(t_water_in: float, water_flow_m3_h: float, t_source_in, c_source_kw_k, ua_kw_k,
                      arrangement: str = "counter", glycol_fraction: float = 0.0,
-                     glycol: str = "ethylene") -> list:
-    """Rate a hot-water chain with water properties from :mod:`.water`.
+                     glycol: str = "ethylene", stage_kinds=None, duties_kw=None,
+                     t_engine_in_max=None, engine_flow_m3_h=None,
+                     engine_glycol_fraction: float = 0.0, engine_glycol: str = "ethylene") -> list:
+    """Rate a hot-water chain of rated streams and engine loops, water properties from :mod:`.water`.
 
     Parameters
     ----------
-    t_return : float
-        Return temperature entering the first stage [°C].
-    flow_m3h : float
-        Circuit volume flow measured at t_return [m³/h].
-    hot_t_in, hot_c_kw_k, ua_kw_k : sequence of float or None
-        Per stage in water-flow order: hot-side inlet temperature [°C],
-        hot-side capacity rate [kW/K], UA [kW/K].
+    t_water_in : float
+        Client's water entering the first stage (the return) [°C].
+    water_flow_m3_h : float
+        Circuit volume flow measured at t_water_in [m³/h].
+    t_source_in, c_source_kw_k, ua_kw_k : sequence of float or None
+        Per stage in water-flow order: source (hot-side) inlet temperature
+        [°C], source capacity rate [kW/K] (both ignored for loop stages), UA
+        [kW/K] (blank = 0 = no exchange).
     arrangement : str
         Flow arrangement of every stage.
-    glycol_fraction : float
-        Glycol mass fraction [-].
-    glycol : str
-        ``"ethylene"`` or ``"propylene"``.
+    glycol_fraction, glycol : float, str
+        Glycol of the client's circuit [-].
+    stage_kinds : sequence of str or None, optional
+        Per stage ``"stream"`` (a rated stream: fixed inlet temperature and
+        capacity rate) or ``"loop"`` (an engine cooling circuit at fixed duty,
+        :mod:`.engine_loop`); blank or omitted = ``"stream"``.
+    duties_kw, t_engine_in_max, engine_flow_m3_h : sequence or None, optional
+        Per loop stage: the duty the engine rejects [kW], the maximum engine
+        inlet temperature [°C] and the circuit's volume flow measured there
+        [m³/h]; one cell for all stages is accepted for the last two.
+    engine_glycol_fraction, engine_glycol : float, str
+        Glycol of the engine circuits [-].
 
     Returns
     -------
     list of dict
-        Per stage: ``duty`` [kW], ``t_in``, ``t_out``, ``t_hot_out`` [°C] and
-        ``c_water`` [kW/K], the water capacity rate used (ṁ times the mean cp
-        over the stage, so that ``duty = ṁ·(h(t_out) − h(t_in))``).
+        Per stage: ``kind``, ``duty`` (heat into the client's water) and
+        ``dump`` (a loop's heat to its dump cooler) [kW], ``t_in``, ``t_out``
+        (water) and ``t_hot_in``, ``t_hot_out`` (source; for a loop the engine
+        outlet and the circuit leaving the exchanger) [°C], ``c_water`` [kW/K].
 
     Raises
     ------
     CellInputError
         Naming the stage where the water would leave its liquid range
-        (boiling at 3 bar(a) = 133.52 °C for water; 100 °C for glycol).
+        (boiling at 3 bar(a) = 133.52 °C for water; 100 °C for glycol), or
+        where a loop's data are missing or the water reaching it is not
+        below its engine outlet temperature.
 
     Notes
     -----
-    Each stage is rated by :func:`rate_stage`; the mean cp is iterated until
-    the ε-NTU duty and the enthalpy rise agree (two or three passes).
+    A stream stage is rated by :func:`rate_stage` with the mean cp of the
+    water iterated until the ε-NTU duty and the enthalpy rise agree.  A loop
+    stage gives ``min(duty, ε·C_min·(t_engine_out − t_water))`` to the water
+    and the rest to its dump cooler (:func:`.engine_loop.loop_in_chain`), so
+    it never gives more than its duty; water reaching a loop at or above its
+    engine outlet temperature gets nothing (the thermostat sends the whole
+    circuit to the dump cooler, common practice).
 
     References
     ----------
-    See :func:`rate_stage` and :func:`cellfuncs.recovery.water.hw_cp`.
+    See :func:`rate_stage`, :func:`cellfuncs.recovery.engine_loop.engine_loop`
+    and :func:`cellfuncs.recovery.water.hw_cp`.
     """
+    from cellfuncs.recovery.engine_loop import loop_in_chain
+
     arrangement = _check_arrangement(arrangement)
-    m = _w.mass_flow(flow_m3h, t_return, glycol_fraction, glycol, t_name="t_return")
-    h = _w.enthalpy(t_return, glycol_fraction, glycol, name="t_return")
+    m, h = _water_side(t_water_in, water_flow_m3_h, glycol_fraction, glycol)
     bounds = _w.enthalpy_bounds(glycol_fraction, glycol)
-    t = float(t_return)
-    stages = _stage_data(list(hot_t_in), list(hot_c_kw_k), list(ua_kw_k))
+    th_all = list(t_source_in)
+    n = len(th_all)
+    kinds = [_kind_word(k, v) for k, v in enumerate(_per_stage("stage_kinds", stage_kinds, n), start=1)]
+    if stage_kinds is not None and len(list(stage_kinds)) == 1 and n > 1:
+        raise CellInputError(f"stage_kinds: 1 cell given, the chain has {n} stages; give one per stage")
+    loops = {k for k, w in enumerate(kinds, start=1) if w == "loop"}
+    stages = _stage_data(th_all, list(c_source_kw_k), list(ua_kw_k), loops)
+    if loops:
+        duties = list(duties_kw) if duties_kw is not None else [None] * n
+        if len(duties) != n:
+            raise CellInputError(f"duties_kw: {len(duties)} cells given, the chain has {n} stages; "
+                                 "give one per stage (blank for streams)")
+        t_max = _per_stage("t_engine_in_max", t_engine_in_max, n)
+        flows = _per_stage("engine_flow_m3_h", engine_flow_m3_h, n)
+    t = float(t_water_in)
     out = []
     for k, (th, ch, ua) in enumerate(stages, start=1):
-        cp = _w.hw_cp(t, glycol_fraction, glycol)
-        if ua == 0:
-            out.append({"duty": 0.0, "t_in": t, "t_out": t, "t_hot_out": th, "c_water": m * cp})
-            continue
-        t_out = t
-        for _ in range(30):
-            q = rate_stage(t, m * cp, th, ch, ua, arrangement)[0]
-            h_out = h + q / m
-            _beyond("ua_kw_k", k, h_out, bounds, "heats" if q >= 0 else "cools")
-            t_out = _w.temperature_from_enthalpy(h_out, t + q / (m * cp), glycol_fraction, glycol)
-            cp_new = (h_out - h) / (t_out - t) if abs(t_out - t) > 1e-7 else cp
-            done = abs(cp_new - cp) <= 1e-12 * cp
-            cp = cp_new
-            if done:
-                break
-        # final pass with the converged mean cp: duty, hot outlet and water outlet agree
-        q, _tc, t_hot_out = rate_stage(t, m * cp, th, ch, ua, arrangement)
-        h_out = h + q / m
-        _beyond("ua_kw_k", k, h_out, bounds, "heats" if q >= 0 else "cools")
-        t_out = _w.temperature_from_enthalpy(h_out, t_out, glycol_fraction, glycol)
-        out.append({"duty": q, "t_in": t, "t_out": t_out, "t_hot_out": t_hot_out, "c_water": m * cp})
-        h, t = h_out, t_out
+        if k not in loops:
+            r = _rate_stream(k, t, h, m, th, ch, ua, arrangement, bounds, glycol_fraction, glycol)
+        else:
+            where = f"stage {k}"
+            for name, v in (("duties_kw", duties[k - 1]), ("t_engine_in_max", t_max[k - 1]),
+                            ("engine_flow_m3_h", flows[k - 1])):
+                if v is None:
+                    raise CellInputError(f"{name}: {where} is blank but the stage is a loop")
+            q = check_range("duties_kw", duties[k - 1], 0.0, None, "kW", where=f"stage {k}")
+            ua_v = 0.0 if ua is None else check_range("ua_kw_k", ua, 0.0, None, "kW/K", where=f"stage {k}")
+            check_range("engine_flow_m3_h", flows[k - 1], 0.0, None, "m³/h", lo_open=True, where=f"stage {k}")
+            m_e = _w.mass_flow(flows[k - 1], t_max[k - 1], engine_glycol_fraction, engine_glycol,
+                               t_name=f"t_engine_in_max (stage {k})")
+            lp = loop_in_chain(q, float(t_max[k - 1]), m_e, (engine_glycol_fraction, engine_glycol), t, h, m,
+                               (glycol_fraction, glycol), ua_v, arrangement, where, bypass_when_hot=True)
+            t_out = lp["t_water_out"]
+            r = {"kind": "loop", "duty": lp["to_client"], "dump": lp["dump"], "t_in": t, "t_out": t_out,
+                 "t_hot_in": lp["t_engine_out"], "t_hot_out": lp["t_hot_out"],
+                 "c_water": lp["to_client"] / (t_out - t) if t_out != t else m * _w.hw_cp(t, glycol_fraction,
+                                                                                           glycol),
+                 "h_out": lp["h_water_out"]}
+        out.append(r)
+        h, t = r.pop("h_out"), r["t_out"]
     return out
 
 
-def chain_temperatures(t_return: float, flow_m3h: float, duties_kw, glycol_fraction: float = 0.0,
+def chain_temperatures(t_water_in: float, water_flow_m3_h: float, duties_kw, glycol_fraction: float = 0.0,
                        glycol: str = "ethylene") -> list:
     """Water temperature after each stage when given duties are added in order.
 
     Parameters
     ----------
-    t_return : float
-        Return temperature entering the first stage [°C].
-    flow_m3h : float
-        Circuit volume flow measured at t_return [m³/h].
+    t_water_in : float
+        Client's water entering the first stage (the return) [°C].
+    water_flow_m3_h : float
+        Circuit volume flow measured at t_water_in [m³/h].
     duties_kw : sequence of float or None
         Heat added in each stage, in water-flow order [kW]; None (a blank cell)
         is a stage with no duty; a negative duty cools the water.
@@ -309,10 +412,9 @@ def chain_temperatures(t_return: float, flow_m3h: float, duties_kw, glycol_fract
     ----------
     See :func:`cellfuncs.recovery.water.hw_cp`.
     """
-    m = _w.mass_flow(flow_m3h, t_return, glycol_fraction, glycol, t_name="t_return")
-    h = _w.enthalpy(t_return, glycol_fraction, glycol, name="t_return")
+    m, h = _water_side(t_water_in, water_flow_m3_h, glycol_fraction, glycol)
     bounds = _w.enthalpy_bounds(glycol_fraction, glycol)
-    t = float(t_return)
+    t = float(t_water_in)
     out = []
     for k, q in enumerate(duties_kw, start=1):
         q = 0.0 if q is None else check_range("duties_kw", q, None, None, "kW")
@@ -324,60 +426,64 @@ def chain_temperatures(t_return: float, flow_m3h: float, duties_kw, glycol_fract
     return out
 
 
-def chain_check(t_return: float, flow_m3h: float, duties_kw, hot_t_max, min_approach: float = 5.0,
-                glycol_fraction: float = 0.0, glycol: str = "ethylene") -> str:
-    """Check that every source can heat the water as far as the chain needs.
+def chain_check(t_water_in: float, water_flow_m3_h: float, duties_kw, t_source_in,
+                min_approach_k: float = 5.0, glycol_fraction: float = 0.0, glycol: str = "ethylene",
+                t_source_out=None) -> str:
+    """Check both ends of every stage of a hot-water chain.
 
     Parameters
     ----------
-    t_return : float
-        Return temperature [°C].
-    flow_m3h : float
-        Circuit volume flow measured at t_return [m³/h].
+    t_water_in : float
+        Client's water entering the first stage (the return) [°C].
+    water_flow_m3_h : float
+        Circuit volume flow measured at t_water_in [m³/h].
     duties_kw : sequence of float or None
         Duty of each stage in water-flow order [kW].
-    hot_t_max : sequence of float or None
-        Hottest hot-side temperature of each stage's source [°C] (one value
-        per stage, or a single value for all).
-    min_approach : float
-        Smallest allowed difference between that temperature and the water
-        leaving the stage [K].
-    glycol_fraction : float
-        Glycol mass fraction [-].
-    glycol : str
-        ``"ethylene"`` or ``"propylene"``.
+    t_source_in : sequence of float or None
+        Hot end: the source's inlet (hottest) temperature of each stage, for an
+        engine loop its engine outlet temperature [°C] (one per stage, or one
+        for all).
+    min_approach_k : float
+        Smallest allowed temperature difference at either end of a stage [K].
+    glycol_fraction, glycol : float, str
+        Glycol of the client's circuit [-].
+    t_source_out : sequence of float or None, optional
+        Cold end: the source's outlet (coldest) temperature of each stage, for
+        an engine loop its maximum engine inlet temperature [°C] (one per
+        stage or one for all; omitted or blank = that end is not checked).
 
     Returns
     -------
     str
-        ``"OK"``, or one line naming the first stage whose water outlet is
-        above ``hot_t_max − min_approach`` or where the water would boil.
+        ``"OK"``, or one line naming the first stage where the water leaves
+        above ``t_source_in − min_approach_k`` (hot end), where the source's
+        outlet is below the water entering the stage ``+ min_approach_k``
+        (cold end), or where the water would boil.
 
     Notes
     -----
     Only stages with a positive duty are checked against their source; a
-    stage with a negative duty is a cooler and is not judged here.
+    stage with a negative duty is a cooler and is not judged here.  The two
+    ends are those of a counterflow exchanger: the water leaving meets the
+    source entering, the water entering meets the source leaving.
 
     References
     ----------
     See :func:`cellfuncs.recovery.water.hw_cp` (water and glycol properties).
     """
-    approach = check_range("min_approach", min_approach, 0.0, None, "K")
+    approach = check_range("min_approach_k", min_approach_k, 0.0, None, "K")
     duties = list(duties_kw)
-    t_max = list(hot_t_max)
-    if len(t_max) == 1 and len(duties) > 1:
-        t_max = t_max * len(duties)
-    if len(t_max) != len(duties):
-        raise CellInputError(
-            f"hot_t_max: {len(t_max)} cells given, duties_kw has {len(duties)}; give one per stage or one for all")
-    m = _w.mass_flow(flow_m3h, t_return, glycol_fraction, glycol, t_name="t_return")
-    h = _w.enthalpy(t_return, glycol_fraction, glycol, name="t_return")
+    n = len(duties)
+    t_max = _per_stage("t_source_in", list(t_source_in), n)
+    t_low = _per_stage("t_source_out", t_source_out, n)
+    m, h = _water_side(t_water_in, water_flow_m3_h, glycol_fraction, glycol)
     t_lo, t_hi, h_lo, h_hi, cp_lo, cp_hi, label, why = _w.enthalpy_bounds(glycol_fraction, glycol)
-    t = float(t_return)
-    for k, (q, tm) in enumerate(zip(duties, t_max), start=1):
+    t = float(t_water_in)
+    for k, (q, tm, tl) in enumerate(zip(duties, t_max, t_low), start=1):
         q = 0.0 if q is None else check_range("duties_kw", q, None, None, "kW")
         if q == 0:
             continue
+        t_enter = t
         h += q / m
         if h > h_hi:
             t_est = t_hi + (h - h_hi) / cp_hi
@@ -390,25 +496,33 @@ def chain_check(t_return: float, flow_m3h: float, duties_kw, hot_t_max, min_appr
         t = _w.temperature_from_enthalpy(h, t, glycol_fraction, glycol)
         if q > 0:
             if tm is None:
-                raise CellInputError(f"hot_t_max: stage {k} is blank but has a duty of {fmt(q)} kW")
-            check_range("hot_t_max", tm, -273.15, None, "°C", lo_open=True)
+                raise CellInputError(f"t_source_in: stage {k} is blank but has a duty of {fmt(q)} kW")
+            check_range("t_source_in", tm, -273.15, None, "°C", lo_open=True)
             limit = tm - approach
             if t > limit + 1e-9:
-                return (f"stage {k}: water leaves at {fmt(round(t, 2))} °C, above {fmt(round(limit, 2))} °C "
-                        f"(source {fmt(tm)} °C − {fmt(approach)} K approach); reorder, split or bypass")
+                return (f"stage {k} hot end: water leaves at {fmt(round(t, 2))} °C, above "
+                        f"{fmt(round(limit, 2))} °C (source in {fmt(tm)} °C − {fmt(approach)} K); "
+                        "reorder, split or bypass")
+            if tl is not None:
+                check_range("t_source_out", tl, -273.15, None, "°C", lo_open=True)
+                low = t_enter + approach
+                if tl < low - 1e-9:
+                    return (f"stage {k} cold end: source leaves at {fmt(round(tl, 2))} °C, below "
+                            f"{fmt(round(low, 2))} °C (water in {fmt(round(t_enter, 2))} °C + "
+                            f"{fmt(approach)} K); reorder, or give this heat to a dump cooler")
     return "OK"
 
 
 # ---- cell wrappers (ranges in, laid-out results back) -----------------------------
 
-def cell_chain(t_return, flow_m3h, duties_kw, glycol_fraction=0.0, glycol="ethylene", stage=None):
+def cell_chain(t_water_in, water_flow_m3_h, duties_kw, glycol_fraction=0.0, glycol="ethylene", stage=None):
     """HW_CHAIN: temperatures after each stage laid out like duties_kw, or one stage's [°C]."""
     cells, lay = stage_cells("duties_kw", duties_kw)
-    temps = chain_temperatures(t_return, flow_m3h, cells, glycol_fraction, glycol)
+    temps = chain_temperatures(t_water_in, water_flow_m3_h, cells, glycol_fraction, glycol)
     if stage is None:
         return layout(temps, lay if lay != "flat" else "row")
     k = _check_stage(stage, len(temps))
-    return [[temps[k - 1]]]
+    return temps[k - 1]
 
 
 def _check_stage(stage, n: int) -> int:
@@ -420,23 +534,68 @@ def _check_stage(stage, n: int) -> int:
     return k
 
 
-def cell_chain_rate(t_return, flow_m3h, hot_t_in, hot_c_kw_k, ua_kw_k, arrangement="counter",
-                    output="t_out", glycol_fraction=0.0, glycol="ethylene"):
-    """HW_CHAIN_RATE: per stage t_out [°C], duty [kW] or t_hot_out [°C], laid out like hot_t_in."""
-    if not isinstance(output, str) or output.strip().lower() not in OUTPUTS_RATE:
-        raise CellTypeError(f"output: {output!r} is not one of " + ", ".join(f'"{o}"' for o in OUTPUTS_RATE))
-    output = output.strip().lower()
-    th, lay = stage_cells("hot_t_in", hot_t_in)
-    ch, _ = stage_cells("hot_c_kw_k", hot_c_kw_k)
+#: result words of HW_CHAIN_RATE: per stage, then totals over the chain
+RATE_RESULTS = ("t_out", "duty", "t_hot_out", "dump", "t_in", "t_hot_in", "total_duty", "total_dump")
+_RESULT_ALIASES = {"t_water_out": "t_out", "t_source_out": "t_hot_out", "t_water_in": "t_in",
+                   "t_source_in": "t_hot_in", "q": "duty"}
+
+
+def _rate_result(result) -> str:
+    if isinstance(result, str):
+        w = "".join(result.split()).lower()
+        w = _RESULT_ALIASES.get(w, w)
+        if w in RATE_RESULTS:
+            return w
+    raise CellTypeError(f"result: {result!r} is not one of " + ", ".join(f'"{o}"' for o in RATE_RESULTS))
+
+
+def _optional_cells(name, rng):
+    if rng is None:
+        return None
+    return stage_cells(name, rng)[0]
+
+
+def _kind_cells(rng):
+    """Stage-kind words of a one-row or one-column range (blank = stream)."""
+    if rng is None:
+        return None
+    if isinstance(rng, str):
+        return [rng]
+    rows = [list(r) if isinstance(r, (list, tuple)) else [r] for r in rng]
+    if len(rows) > 1 and max(len(r) for r in rows) > 1:
+        raise CellTypeError(f"stage_kinds: a {len(rows)}×{max(len(r) for r in rows)} block was given; "
+                            "select one row or one column")
+    return [c for r in rows for c in r] if len(rows) == 1 else [r[0] if r else None for r in rows]
+
+
+def cell_chain_rate(t_water_in, water_flow_m3_h, t_source_in, c_source_kw_k, ua_kw_k, arrangement="counter",
+                    result="t_out", glycol_fraction=0.0, glycol="ethylene", stage_kinds=None, duties_kw=None,
+                    t_engine_in_max=None, engine_flow_m3_h=None, stage=None, engine_glycol_fraction=0.0,
+                    engine_glycol="ethylene"):
+    """HW_CHAIN_RATE: per stage values laid out like t_source_in, one stage's value, or a chain total."""
+    word = _rate_result(result)
+    th, lay = stage_cells("t_source_in", t_source_in)
+    ch, _ = stage_cells("c_source_kw_k", c_source_kw_k)
     ua, _ = stage_cells("ua_kw_k", ua_kw_k)
-    res = rate_chain_water(t_return, flow_m3h, th, ch, ua, arrangement, glycol_fraction, glycol)
-    vals = [r[output] if r[output] is not None else "" for r in res]
+    res = rate_chain_water(t_water_in, water_flow_m3_h, th, ch, ua, arrangement, glycol_fraction, glycol,
+                           _kind_cells(stage_kinds), _optional_cells("duties_kw", duties_kw),
+                           _optional_cells("t_engine_in_max", t_engine_in_max),
+                           _optional_cells("engine_flow_m3_h", engine_flow_m3_h),
+                           engine_glycol_fraction, engine_glycol)
+    if word.startswith("total_"):
+        if stage is not None:
+            raise CellInputError(f"stage: {stage!r} given with result \"{word}\"; a total has no stage")
+        return math.fsum(r[word[6:]] for r in res)
+    vals = [r[word] if r[word] is not None else "" for r in res]
+    if stage is not None:
+        return vals[_check_stage(stage, len(vals)) - 1]
     return layout(vals, lay if lay != "flat" else "row")
 
 
-def cell_chain_check(t_return, flow_m3h, duties_kw, hot_t_max, min_approach=5.0,
-                     glycol_fraction=0.0, glycol="ethylene"):
-    """HW_CHAIN_CHECK: "OK" or the first finding (one line)."""
+def cell_chain_check(t_water_in, water_flow_m3_h, duties_kw, t_source_in, min_approach_k=5.0,
+                     glycol_fraction=0.0, glycol="ethylene", t_source_out=None):
+    """HW_CHAIN_CHECK: "OK" or the first finding at either end of a stage (one line)."""
     cells, _ = stage_cells("duties_kw", duties_kw)
-    tmax, _ = stage_cells("hot_t_max", hot_t_max)
-    return chain_check(t_return, flow_m3h, cells, tmax, min_approach, glycol_fraction, glycol)
+    tmax, _ = stage_cells("t_source_in", t_source_in)
+    tlow = _optional_cells("t_source_out", t_source_out)
+    return chain_check(t_water_in, water_flow_m3_h, cells, tmax, min_approach_k, glycol_fraction, glycol, tlow)

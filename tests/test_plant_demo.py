@@ -1,0 +1,104 @@
+"""The tender demo adds up: its invented engine's declared datasheet closes on the fuel input, the
+declared figures agree with what the library computes from the same engine data, and the committed
+workbook's first-law check reads OK.
+
+Sources: the first law of thermodynamics (steady flow; the net-calorific-value balance of ISO 3046-1,
+from memory); the plant family's own checks for the computed figures are in tests/test_plant_loops.py.
+"""
+
+from __future__ import annotations
+
+import math
+from pathlib import Path
+
+import openpyxl
+import pytest
+
+from cellfuncs.demo import tender_chp
+
+ROOT = Path(__file__).resolve().parent.parent
+BOOK = ROOT / "workbooks_demo" / tender_chp.FILENAME
+D = tender_chp.datasheet_values()
+
+
+def test_declared_datasheet_closes_on_the_fuel():
+    """fuel = electrical + generator loss + HT/LT heat + exhaust to 120 °C + exhaust loss + radiation
+    (first law on the net calorific value), to 0.1 % of the fuel."""
+    gen_loss = D["electrical_kw"] / D["generator_efficiency"] - D["electrical_kw"]
+    total = math.fsum(D[k] for k in tender_chp.BALANCE_ITEMS) + gen_loss
+    assert abs(D["fuel_power_kw"] - total) <= 1e-3 * D["fuel_power_kw"]
+    # no item is implausible for a lean-burn gas engine (common practice): recoverable engine heat
+    # (jacket, oil, charge air) 15-28 % of the fuel, radiation 1-3 %
+    engine_heat = D["q_jacket_kw"] + D["q_oil_kw"] + D["q_cac_ht_kw"] + D["q_cac_lt_kw"]
+    assert 0.15 <= engine_heat / D["fuel_power_kw"] <= 0.28
+    assert 0.01 <= D["q_radiation_kw"] / D["fuel_power_kw"] <= 0.03
+
+
+def test_declared_figures_match_the_physics():
+    """The declared charge-air, exhaust flow and exhaust heat agree with the library's estimates from the
+    same engine data (within 1 %): the invented engine is physically consistent."""
+    from cellfuncs import excel as X
+
+    names = [[g] for g, _ in tender_chp.GAS]
+    amounts = [[a] for _, a in tender_chp.GAS]
+    amb = (30.0, 0.55, 0.99)
+    lam = D["air_ratio"]
+    mix = X.CAC_MIXTURE_FLOW(D["fuel_power_kw"], lam, names, amounts, "net", *amb, "mixture")
+    t_c = X.TURBO_T_OUT(amb[0], amb[2], D["p_boost_bar"], D["isentropic_efficiency"], lam, names, amounts,
+                        amb[0], amb[1])
+    q_ht = X.CAC_DUTY(mix, t_c, D["t_mixture_ht"], D["p_boost_bar"], lam, names, amounts, *amb)
+    q_lt = X.CAC_DUTY(mix, D["t_mixture_ht"], D["t_mixture"], D["p_boost_bar"], lam, names, amounts, *amb)
+    flow = X.EXH_FLOW(D["fuel_power_kw"], lam, names, amounts, "net", *amb)
+    q_exh = X.EXH_HEAT(D["exhaust_flow_kg_h"], D["t_exhaust_in"], 120.0, lam, names, amounts, *amb)
+    loss = X.EXH_LOSS(D["exhaust_flow_kg_h"], 120.0, lam, names, amounts, 25.0, *amb)
+    assert D["q_cac_ht_kw"] == pytest.approx(q_ht, rel=0.01)
+    assert D["q_cac_lt_kw"] == pytest.approx(q_lt, rel=0.01)
+    assert D["exhaust_flow_kg_h"] == pytest.approx(flow, rel=0.01)
+    assert D["q_exhaust_kw"] == pytest.approx(q_exh, rel=0.01)
+    assert D["q_exhaust_loss_kw"] == pytest.approx(loss, rel=0.01)
+
+
+def _named(name):
+    wb = openpyxl.load_workbook(BOOK, data_only=True)
+    (sheet, ref), = wb.defined_names[name].destinations
+    return wb[sheet][ref.replace("$", "")].value
+
+
+def test_committed_workbook_balance_reads_ok():
+    for name in ("out_balance_check", "datasheet_check"):
+        assert str(_named(name)).startswith("OK: "), name
+    assert _named("rated_a_check") == "OK"
+    # the reversed order dumps heat instead of pushing it into the client's water
+    assert _named("rated_b_dump") > 0.0
+    # heat to the client + dump + exhaust loss + losses = fuel − electrical (first law)
+    out = (_named("out_heat_to_client") + _named("out_dump_heat") + _named("out_exhaust_loss")
+           + D["q_radiation_kw"] + D["electrical_kw"] / D["generator_efficiency"])
+    assert out == pytest.approx(D["fuel_power_kw"], rel=5e-3)
+
+
+def test_no_legacy_array_formulas_and_no_stray_header():
+    from openpyxl.worksheet.formula import ArrayFormula
+
+    wb = openpyxl.load_workbook(BOOK)
+    for ws in wb.worksheets:
+        for row in ws.iter_rows():
+            for c in row:
+                assert not isinstance(c.value, ArrayFormula), (ws.title, c.coordinate)
+    texts = [c.value for row in wb["Inputs"].iter_rows() for c in row if isinstance(c.value, str)]
+    assert texts.count("mol-%") == 1
+    from cellfuncs.catalogue import entries
+
+    functions = {e.name.upper() for e in entries()}
+    assert not [n for n in wb.defined_names if n.upper() in functions]
+
+
+def test_cases_over_the_demo_inputs():
+    """`cellfuncs cases` runs the demo over its inputs (site, client water); the first case reproduces the
+    committed workbook, a hotter site with a colder client circuit still closes the balance."""
+    from cellfuncs.cases import CaseRunner
+
+    runner = CaseRunner(str(BOOK), ["t_ambient", "rh_ambient", "t_water_in", "t_water_out"],
+                        ["out_balance_check", "out_heat_to_client", "out_dump_heat"])
+    rows = [runner.run_case([30.0, 0.55, 60.0, 90.0]), runner.run_case([35.0, 0.6, 55.0, 85.0])]
+    assert str(rows[0][0]).startswith("OK: ") and str(rows[1][0]).startswith("OK: ")
+    assert rows[0][1] == pytest.approx(_named("out_heat_to_client"), rel=1e-9)
