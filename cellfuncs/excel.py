@@ -20,6 +20,7 @@ import xlwings as xw
 
 from cellfuncs import catalogue
 from cellfuncs.adapt import call as _adapt_call
+from cellfuncs.catalogue.spec import RANGE_KINDS
 from cellfuncs.errors import CellInputError
 
 __all__: list = []
@@ -55,7 +56,7 @@ def _make(entry):
     fn.__qualname__ = entry.name
     # decorators: ret/arg first (innermost), func topmost
     for a in reversed(entry.args):
-        if a.kind == "range":
+        if a.kind in RANGE_KINDS:
             # always rows of cells: xlwings would flatten a one-row or one-column range
             fn = xw.arg(a.name, ndim=2, doc=a.full_help()[:255])(fn)
         else:

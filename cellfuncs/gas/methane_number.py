@@ -43,8 +43,6 @@ __all__ = [
     "split_combustibles",
     "Partial",
     "basis_text",
-    "cell_methane_number",
-    "cell_methane_number_basis",
     "METHODS",
 ]
 
@@ -516,17 +514,3 @@ def basis_text(comp, method: str = "en16726") -> str:
     if r.notes:
         text += "; " + "; ".join(r.notes)
     return text + "; figures unverified against Table A.10"
-
-
-# ---------------------------------------------------------------------------
-# cell wrappers
-
-
-def cell_methane_number(components, fractions=None, method="en16726") -> float:
-    """GAS_METHANE_NUMBER: methane number [-]."""
-    return methane_number(parse_composition(components, fractions), method)
-
-
-def cell_methane_number_basis(components, fractions=None, method="en16726") -> str:
-    """GAS_METHANE_NUMBER_BASIS: what the methane number leans on (one line of text)."""
-    return basis_text(parse_composition(components, fractions), method)
