@@ -169,6 +169,8 @@ def _one(arg, v):
         if not isinstance(v, str):
             raise CellTypeError(f"{arg.name}: {v!r} is not one of " + ", ".join(arg.options))
         word = v.strip().lower()
+        if word not in arg.options and " " in word:
+            word = "".join(word.split())  # inner spaces are ignored too ("EN 16726")
         if word in arg.options:
             return word
         alias = {k.lower(): w for k, w in arg.aliases.items()}.get(word)
@@ -177,6 +179,9 @@ def _one(arg, v):
         raise CellTypeError(f"{arg.name}: {v.strip()!r} is not one of " + ", ".join(arg.options))
     if kind == "reference":
         if isinstance(v, str):
+            if _numeric_text(v):
+                raise CellTypeError(f"{arg.name}: text {v.strip()!r} is neither a number nor "
+                                    '"t1/t2" (enter the number as a number)')
             return v.strip()
         return _number(arg, v)
     if kind == "text":

@@ -29,11 +29,20 @@ __all__: list = []
 INTERNAL_ERROR = "#VALUE! internal error: "
 
 
+#: longest text a cell may show (a longer returned text shows #VALUE! in Excel)
+TEXT_MAX = 255
+
+
+def _fit(text: str) -> str:
+    """An error text cut to Excel's 255 characters (a long echoed input is shortened)."""
+    return text if len(text) <= TEXT_MAX else text[:TEXT_MAX - 1] + "…"
+
+
 def _run(entry, values):
     try:
         return _adapt_call(entry, values)
     except CellInputError as exc:
-        return exc.cell_text()
+        return _fit(exc.cell_text())
     except Exception as exc:  # noqa: BLE001 - a cell must never show a traceback
         text = " ".join(f"{type(exc).__name__}: {exc}".split())
         return INTERNAL_ERROR + text[:200]

@@ -55,8 +55,8 @@ ENTRIES = [
         target="cellfuncs.chargeair.mixture:mixture_flow",
         category=CATEGORY,
         description="Mass flow of the air-gas mixture of a mixture-charged gas engine, or of "
-                    "its dry air, water vapour or fuel part, from the fuel power, air ratio "
-                    "and ambient humidity (CAC_ = charge air, not the cooler)." + _CAUTION,
+                    "its dry air, water or fuel part, from the fuel power, air ratio and "
+                    "ambient humidity (CAC_ = charge air, not the cooler)." + _CAUTION,
         args=(
             Arg("fuel_power_kw", "Fuel (heat input) power of the engine on the chosen "
                 "calorific value kind, 0 or more", unit="kW"),
@@ -84,9 +84,8 @@ ENTRIES = [
         target="cellfuncs.chargeair.compressor:t_out",
         category=CATEGORY,
         description="Compressor outlet temperature of the humid air-gas mixture (humid air "
-                    "only without a gas): ideal-gas entropy balance with temperature-dependent "
-                    "cp, then the isentropic efficiency on enthalpy (TURBO_ = turbocharger "
-                    "compressor, charge-air family)." + _CAUTION,
+                    "without a gas): ideal-gas entropy balance, cp(T), isentropic efficiency on "
+                    "enthalpy (TURBO_ = turbocharger compressor)." + _CAUTION,
         args=(
             Arg("t_air_in", "Compressor inlet temperature, -50 to 300, at or above the "
                 "mixture's dew point", unit="°C"),
@@ -120,8 +119,7 @@ ENTRIES = [
         target="cellfuncs.chargeair.cooler:duty",
         category=CATEGORY,
         description="Heat removed from the air-gas mixture in a charge-air cooler (stage) "
-                    "between t_mixture_in and t_mixture_out: sensible plus latent heat of water "
-                    "condensed. "
+                    "from t_mixture_in to t_mixture_out, sensible plus latent. "
                     "Condensate in the intake damages engines unless drained." + _CAUTION,
         args=(
             _FLOW,

@@ -26,8 +26,7 @@ KIND_ALIASES = {"hhv": "gross", "superior": "gross", "higher": "gross",
 
 
 _GROSS = ("; gas-quality functions default to gross 15/15, as gas analyses are reported")
-_NET = ("; engine-side functions default to net, as engine datasheets are (GAS_CV and GAS_WOBBE "
-        "default to gross 15/15)")
+_NET = "; engine-side functions default to net, as engine datasheets (GAS_CV: gross 15/15)"
 
 
 def _kind(default: str) -> Arg:
@@ -86,9 +85,9 @@ ENTRIES = [
         name="GAS_CV",
         target="cellfuncs.gas.iso6976:calorific_value",
         category=CATEGORY,
-        description="Gross or net calorific value of a gas from its composition (ISO 6976:2016), "
-                    "real gas on a volume basis, or mass or molar basis; defaults gross 15/15 as "
-                    "analyses are reported (GAS_FUEL_FLOW: net 25/0)." + _NOTE,
+        description="Gross or net calorific value of a gas (ISO 6976:2016), volume (real "
+                    "gas), mass or molar basis; defaults gross 15/15 as analyses are "
+                    "reported (GAS_FUEL_FLOW: net 25/0)." + _NOTE,
         args=(_COMPONENTS, _AMOUNTS, _kind("gross"), _BASIS, _ref("15/15"), _P_METERING),
         returns='calorific value: basis "volume" [MJ/m³], "mass" [MJ/kg], "molar" [kJ/mol]',
     ),
@@ -162,8 +161,8 @@ ENTRIES = [
         target="cellfuncs.gas.combustion:fuel_flow",
         category=CATEGORY,
         description="Gas volume flow at metering reference conditions (1.01325 bar) for a fuel "
-                    "power from the engine's declared datasheet. Defaults net 25/0 as datasheets "
-                    "state fuel power (GAS_CV, GAS_WOBBE: gross 15/15)." + _NOTE,
+                    "power from the engine's datasheet; defaults net 25/0 as datasheets (GAS_CV, "
+                    "GAS_WOBBE: gross 15/15)." + _NOTE,
         args=(_COMPONENTS, _AMOUNTS_REQ,
               Arg("fuel_power_kw", "Fuel power (heat input) on the chosen kind, 0 or more",
                   unit="kW"),
@@ -175,7 +174,7 @@ ENTRIES = [
         target="cellfuncs.gas.combustion:fuel_power",
         category=CATEGORY,
         description="Fuel power of a gas volume flow at metering reference conditions "
-                    "(1.01325 bar); inverse of GAS_FUEL_FLOW. Defaults net 25/0 as engine "
+                    "(1.01325 bar); inverse of GAS_FUEL_FLOW; defaults net 25/0 as engine "
                     "datasheets (GAS_CV, GAS_WOBBE: gross 15/15)." + _NOTE,
         args=(_COMPONENTS, _AMOUNTS_REQ,
               Arg("fuel_flow_m3_h", "Gas volume flow at the metering reference conditions "

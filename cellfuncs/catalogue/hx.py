@@ -9,8 +9,8 @@ CATEGORY = "cellfuncs · heat transfer"
 _PKG = "cellfuncs.heat_transfer"
 
 _FLOW_ALIASES = {k: v for k, v in ALIASES.items() if v in FLOWS}
-_ARR_HELP = ("Flow arrangement (n-m: n shell and m tube passes; cross: both fluids unmixed; "
-             "aliases such as counterflow, crossflow accepted)")
+_ARR_HELP = ("Flow arrangement (n-m: n shell, m tube passes; cross: both unmixed; counterflow, "
+             "crossflow accepted)")
 
 
 def _t(name, what):
@@ -31,7 +31,7 @@ def _arrangement(default, why=""):
 
 
 #: HX_F's default stays "1-2": F is relative to counterflow, so "counter" would always give 1
-_F_DEFAULT_WHY = ('; default "1-2" here (F of counter is 1 by definition), "counter" elsewhere')
+_F_DEFAULT_WHY = "; counter gives F = 1"
 
 
 _CAUTION = " Estimate for tendering; final design per local codes and licensed engineers."
