@@ -198,3 +198,23 @@ def test_pending_entries_still_exist():
     """PENDING names real entries, so it is emptied rather than forgotten."""
     names = {e.name for e in ENTRIES}
     assert PENDING <= names
+
+
+def test_every_multi_value_function_has_a_per_cell_form():
+    """Glossary rule "per_cell": a result word, a stage or an index gives one value per cell."""
+    for e in CHECKED:
+        if e.shape == "scalar":
+            continue
+        per_cell = [a for a in e.args if a.name in ("result", "stage", "index")]
+        assert per_cell, f"{e.name} returns several values but has no result/stage/index"
+        assert per_cell[0].optional, e.name
+
+
+def test_gas_components_index_gives_one_name():
+    from cellfuncs import excel
+
+    names = [row[0] for row in excel.GAS_COMPONENTS()]
+    assert names[0] == "methane" and len(names) > 10
+    assert [excel.GAS_COMPONENTS(i) for i in range(1, len(names) + 1)] == names
+    for bad in (0, len(names) + 1, 1.5):
+        assert excel.GAS_COMPONENTS(bad).startswith("#NUM! index:")
