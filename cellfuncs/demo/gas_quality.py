@@ -68,7 +68,7 @@ def build(path: str) -> None:
 
     row("Sum of the analysis", "=SUM({g})", "mol-%", "0.00")
     row("Molar mass", "=GAS_MOLAR_MASS(gas_names,{g})", "kg/kmol", "0.000")
-    row("Compression factor Z at metering", "=GAS_Z(gas_names,{g},VALUE(MID(ref,FIND(\"/\",ref)+1,3)))",
+    row("Compression factor Z at metering", "=GAS_Z(gas_names,{g},ref)",
         "-", "0.00000")
     row("Calorific value (kind chosen), volume", "=GAS_CV(gas_names,{g},kind,\"volume\",ref)", "MJ/m³",
         "0.000", "out_cv")
@@ -78,9 +78,9 @@ def build(path: str) -> None:
     row("Gross calorific value, molar", "=GAS_CV(gas_names,{g},\"gross\",\"molar\",ref)", "kJ/mol", "0.00")
     row("Wobbe index (gross)", "=GAS_WOBBE(gas_names,{g},\"gross\",ref)", "MJ/m³", "0.000", "out_wobbe")
     row("Wobbe index (net)", "=GAS_WOBBE(gas_names,{g},\"net\",ref)", "MJ/m³")
-    row("Density at metering", "=GAS_DENSITY(gas_names,{g},VALUE(MID(ref,FIND(\"/\",ref)+1,3)))", "kg/m³",
+    row("Density at metering", "=GAS_DENSITY(gas_names,{g},ref)", "kg/m³",
         "0.0000")
-    row("Relative density", "=GAS_REL_DENSITY(gas_names,{g},VALUE(MID(ref,FIND(\"/\",ref)+1,3)))", "-",
+    row("Relative density", "=GAS_REL_DENSITY(gas_names,{g},ref)", "-",
         "0.0000")
     row("Methane number (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,{g})", "-", "0.0",
         "out_mn")

@@ -24,7 +24,7 @@ T_MIX = (35, 40, 45, 50, 55, 60)
 MNS = (60, 70, 80, 90, 100)
 T_AMB = (10, 15, 20, 25, 30, 35, 40, 45)
 RHS = (0.3, 0.6, 0.9)
-ARGS_MIX = "lambda_air,gas_names,gas_amounts,t_amb,rh_amb,p_amb"
+ARGS_MIX = "air_ratio,gas_names,gas_amounts,t_amb,rh_amb,p_amb"
 
 
 def build(path: str) -> None:
@@ -37,7 +37,7 @@ def build(path: str) -> None:
     b.input("p_amb", "Ambient pressure", 0.98, "bar(a)")
     b.input_heading("Engine (values as from a declared datasheet; invented here)")
     b.input("fuel_kw", "Fuel power (net)", 2900, "kW")
-    b.input("lambda_air", "Air excess ratio lambda", 1.9, "-")
+    b.input("air_ratio", "Air ratio λ (engine datasheet)", 1.9, "-")
     b.input("p_boost", "Boost pressure after the compressor", 3.4, "bar(a)")
     b.input("eta_c", "Compressor isentropic efficiency", 0.78, "-")
     b.input("cr", "Compression ratio (effective)", 12.0, "-",
@@ -58,9 +58,9 @@ def build(path: str) -> None:
     c.calc("Methane number of the gas (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,gas_amounts)",
            "-", name="mn_gas", fmt="0.0")
     c.calc("Mixture mass flow (dry air + water vapour + gas)",
-           '=CAC_MIXTURE_FLOW(fuel_kw,lambda_air,gas_names,gas_amounts,"net",t_amb,rh_amb,p_amb,"mixture")',
+           '=CAC_MIXTURE_FLOW(fuel_kw,air_ratio,gas_names,gas_amounts,"net",t_amb,rh_amb,p_amb,"mixture")',
            "kg/h", name="mix_flow", fmt="0")
-    c.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_amb,p_amb,p_boost,eta_c,lambda_air,gas_names,"
+    c.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_amb,p_amb,p_boost,eta_c,air_ratio,gas_names,"
            "gas_amounts,t_amb,rh_amb)", "°C", name="t_comp_out", fmt="0.0")
     c.calc("HT stage duty (compressor outlet → after HT)",
            f"=CAC_DUTY(mix_flow,t_comp_out,t_after_ht,p_boost,{ARGS_MIX})", "kW", name="out_ht_duty",
@@ -114,7 +114,7 @@ def build(path: str) -> None:
         r = a.row
         cells = [f"=$A{r}+dry_approach+lt_approach",
                  f"=KNOCK_MARGIN(B{r},p_boost,cr,mn_gas,t_ref,p_ref,mn_ref,cr,\"K\",k_mn)"]
-        cells += [f"=CAC_DEWPOINT(p_boost,lambda_air,gas_names,gas_amounts,$A{r},{rh},p_amb)" for rh in RHS]
+        cells += [f"=CAC_DEWPOINT(p_boost,air_ratio,gas_names,gas_amounts,$A{r},{rh},p_amb)" for rh in RHS]
         a.table_row(t, cells, "", "0.0")
     last = a.row - 1
     chart2 = ScatterChart()

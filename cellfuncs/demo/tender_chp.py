@@ -23,7 +23,7 @@ SOURCES = ("oil cooler", "HT charge-air stage", "jacket water", "exhaust")
 ORDER_A = ("oil cooler", "jacket water", "HT charge-air stage", "exhaust")
 ORDER_B = ("exhaust", "jacket water", "HT charge-air stage", "oil cooler")
 AMB = "t_amb,rh_amb,p_amb"
-MIX = "lambda_air,gas_names,gas_amounts," + AMB
+MIX = "air_ratio,gas_names,gas_amounts," + AMB
 
 
 def build(path: str) -> None:
@@ -41,7 +41,7 @@ def build(path: str) -> None:
     b.input("speed", "Engine speed", 1500, "rpm")
     b.input("freq", "Grid frequency", 50, "Hz")
     b.input("displacement", "Total displacement", 64, "l", "16 cylinders × 4.0 l")
-    b.input("lambda_air", "Air excess ratio lambda", 1.85, "-")
+    b.input("air_ratio", "Air ratio λ (engine datasheet)", 1.85, "-")
     b.input("p_boost", "Boost pressure", 3.3, "bar(a)")
     b.input("eta_c", "Compressor isentropic efficiency", 0.78, "-")
     b.input("cr", "Compression ratio (effective)", 12.5, "-")
@@ -83,9 +83,9 @@ def build(path: str) -> None:
            name="mn_gas", fmt="0.0")
     g.calc("Fuel gas flow (25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_kw,"net","25/0")', "m³/h",
            name="out_fuel_flow", result=True, fmt="0.0")
-    g.calc("Mixture mass flow", f'=CAC_MIXTURE_FLOW(fuel_kw,lambda_air,gas_names,gas_amounts,"net",{AMB},'
+    g.calc("Mixture mass flow", f'=CAC_MIXTURE_FLOW(fuel_kw,air_ratio,gas_names,gas_amounts,"net",{AMB},'
            '"mixture")', "kg/h", name="mix_flow", fmt="0")
-    g.calc("Compressor outlet temperature", f"=TURBO_T_OUT(t_amb,p_amb,p_boost,eta_c,lambda_air,gas_names,"
+    g.calc("Compressor outlet temperature", f"=TURBO_T_OUT(t_amb,p_amb,p_boost,eta_c,air_ratio,gas_names,"
            "gas_amounts,t_amb,rh_amb)", "°C", name="t_comp_out", fmt="0.0")
     g.calc("HT charge-air stage heat", f"=CAC_DUTY(mix_flow,t_comp_out,t_after_ht,p_boost,{MIX})", "kW",
            name="q_ht", fmt="0.0")
@@ -104,13 +104,13 @@ def build(path: str) -> None:
     g.calc("Generator pole pairs", "=GEN_POLE_PAIRS(freq,speed)", "-", name="pole_pairs", fmt="0")
 
     e = b.sheet("Exhaust", "Exhaust heat to the stack")
-    e.calc("Exhaust mass flow (wet)", f'=EXH_FLOW(fuel_kw,lambda_air,gas_names,gas_amounts,"net",{AMB})', "kg/h",
+    e.calc("Exhaust mass flow (wet)", f'=EXH_FLOW(fuel_kw,air_ratio,gas_names,gas_amounts,"net",{AMB})', "kg/h",
            name="exh_flow", fmt="0")
-    e.calc("Water dew point of the exhaust", f"=EXH_DEWPOINT(lambda_air,gas_names,gas_amounts,1.01325,{AMB})",
+    e.calc("Water dew point of the exhaust", f"=EXH_DEWPOINT(air_ratio,gas_names,gas_amounts,1.01325,{AMB})",
            "°C", name="exh_dew", fmt="0.0")
     e.calc("Exhaust heat from the turbine outlet to the stack", f"=EXH_HEAT(exh_flow,t_exh,t_stack,{MIX})", "kW",
            name="q_exh", fmt="0.0")
-    e.calc("O2 in the exhaust (dry)", f'=EXH_COMPOSITION(lambda_air,gas_names,gas_amounts,"O2","dry",{AMB})',
+    e.calc("O2 in the exhaust (dry)", f'=EXH_COMPOSITION(air_ratio,gas_names,gas_amounts,"O2","dry",{AMB})',
            "-", name="o2_dry", fmt="0.00%")
     e.calc("Exhaust capacity rate (mean)", "=q_exh/(t_exh-t_stack)", "kW/K", name="c_exh", fmt="0.000")
 
