@@ -221,8 +221,15 @@ def _coerce_cells(entry: CellFunction, values: tuple) -> list:
 _GAS_KINDS = frozenset(("gas", "amounts", "amount_uncertainties"))
 
 
+_HAS_GAS: dict = {}
+
+
 def _has_gas(entry: CellFunction) -> bool:
-    return any(a.kind in _GAS_KINDS for a in entry.args)
+    key = (entry.name, entry.target, len(entry.args))
+    found = _HAS_GAS.get(key)
+    if found is None:
+        found = _HAS_GAS[key] = any(a.kind in _GAS_KINDS for a in entry.args)
+    return found
 
 
 def coerce_args(entry: CellFunction, values: tuple) -> list:
@@ -254,10 +261,26 @@ def _rename(exc: CellInputError, mapping: dict) -> CellInputError:
     return out
 
 
+@functools.lru_cache(maxsize=1024)
+def _parse_plain(components: tuple, amounts):
+    """parse_composition cached on ranges of floats, text and blanks only (no booleans,
+    which would compare equal to 1.0 and 0.0 in the cache key)."""
+    from cellfuncs.gas.composition import parse_composition
+
+    return parse_composition(components, amounts)
+
+
+def _plain(rows) -> bool:
+    # rows come from _range: always a tuple of tuples of cells
+    return type(rows) is tuple and _PLAIN_RANGE_TYPES.issuperset(map(type, _chain(rows)))
+
+
 def _parse_gas(gas_arg, amounts_arg, components, amounts):
     from cellfuncs.gas.composition import parse_composition
 
     try:
+        if _plain(components) and (amounts is None or _plain(amounts)):
+            return _parse_plain(components, amounts)
         return parse_composition(components, amounts)
     except CellInputError as exc:
         names = {"components": gas_arg.name,
