@@ -35,6 +35,13 @@ REFS = ("15/15", "25/0", "0/0", "15/0", "20/20", "25/15", "25/20")
 COLS = "BCDE"
 
 
+
+def _unit(unit: str, kind: str, ref: str = "ref") -> str:
+    """A unit cell that spells the kind and reference conditions, "MJ/m³ (gross, 15/15)"
+    (glossary defaults rule); ``kind`` is a word or the name of the kind input."""
+    k = f'"{kind}"' if kind in ("gross", "net") else kind
+    return f'="{unit} ("&{k}&", "&{ref}&")"'
+
 def build(path: str) -> None:
     b = DemoBook("Gas quality — four invented gases side by side",
                  "ISO 6976:2016 properties, calorific-value uncertainty, methane number (EN 16726:2015 "
@@ -70,14 +77,16 @@ def build(path: str) -> None:
     row("Molar mass", "=GAS_MOLAR_MASS(gas_names,{g})", "kg/kmol", "0.000")
     row("Compression factor Z at metering", "=GAS_Z(gas_names,{g},ref)",
         "-", "0.00000")
-    row("Calorific value (kind chosen), volume", "=GAS_CV(gas_names,{g},kind,\"volume\",ref)", "MJ/m³",
+    row("Calorific value (kind chosen), volume", "=GAS_CV(gas_names,{g},kind,\"volume\",ref)", _unit("MJ/m³", "kind"),
         "0.000", "out_cv")
-    row("Gross calorific value, volume", "=GAS_CV(gas_names,{g},\"gross\",\"volume\",ref)", "MJ/m³")
-    row("Net calorific value, volume", "=GAS_CV(gas_names,{g},\"net\",\"volume\",ref)", "MJ/m³")
-    row("Net calorific value, mass", "=GAS_CV(gas_names,{g},\"net\",\"mass\",ref)", "MJ/kg")
-    row("Gross calorific value, molar", "=GAS_CV(gas_names,{g},\"gross\",\"molar\",ref)", "kJ/mol", "0.00")
-    row("Wobbe index (gross)", "=GAS_WOBBE(gas_names,{g},\"gross\",ref)", "MJ/m³", "0.000", "out_wobbe")
-    row("Wobbe index (net)", "=GAS_WOBBE(gas_names,{g},\"net\",ref)", "MJ/m³")
+    row("Gross calorific value, volume", "=GAS_CV(gas_names,{g},\"gross\",\"volume\",ref)", _unit("MJ/m³", "gross"))
+    row("Net calorific value, volume", "=GAS_CV(gas_names,{g},\"net\",\"volume\",ref)", _unit("MJ/m³", "net"))
+    row("Net calorific value, mass", "=GAS_CV(gas_names,{g},\"net\",\"mass\",ref)", _unit("MJ/kg", "net"))
+    row("Gross calorific value, molar", "=GAS_CV(gas_names,{g},\"gross\",\"molar\",ref)",
+        _unit("kJ/mol", "gross"), "0.00")
+    row("Wobbe index (gross)", "=GAS_WOBBE(gas_names,{g},\"gross\",ref)", _unit("MJ/m³", "gross"), "0.000",
+        "out_wobbe")
+    row("Wobbe index (net)", "=GAS_WOBBE(gas_names,{g},\"net\",ref)", _unit("MJ/m³", "net"))
     row("Density at metering", "=GAS_DENSITY(gas_names,{g},ref)", "kg/m³",
         "0.0000")
     row("Relative density", "=GAS_REL_DENSITY(gas_names,{g},ref)", "-",
@@ -88,12 +97,13 @@ def build(path: str) -> None:
     row("Stoichiometric air, mass", "=GAS_AIR_REQUIREMENT(gas_names,{g},\"mass\")", "kg/kg")
     row("CO2 factor (net, 25 °C)", "=GAS_CO2_FACTOR(gas_names,{g},\"net\",25)", "kg/MWh", "0.0")
     row("Fuel flow for the engine's fuel power", "=GAS_FUEL_FLOW(gas_names,{g},fuel_kw,\"net\",fuel_ref)",
-        "m³/h", "0.0", "out_fuel_flow")
+        _unit("m³/h", "net", "fuel_ref"), "0.0", "out_fuel_flow")
     row("Check: fuel power of that flow", "=GAS_FUEL_POWER(gas_names,{g},out_fuel_flow_{i},\"net\",fuel_ref)",
-        "kW", "0.0")
+        _unit("kW", "net", "fuel_ref"), "0.0")
     c.heading("Uncertainty of the grid gas' calorific value (ISO 6976:2016 Annex B)")
     c.calc("Expanded uncertainty of the chosen calorific value",
-           "=GAS_CV_UNCERTAINTY(gas_names,gas_1,gas_1_u,kind,\"volume\",ref,coverage)", "MJ/m³",
+           "=GAS_CV_UNCERTAINTY(gas_names,gas_1,gas_1_u,kind,\"volume\",ref,coverage)",
+           _unit("MJ/m³", "kind"),
            name="out_cv_u_1", fmt="0.0000")
     c.calc("Relative expanded uncertainty", "=out_cv_u_1/out_cv_1", "-", fmt="0.00%")
     c.calc("Linear methane number (Kubesh, King & Liss 1992) of the grid gas",
@@ -104,10 +114,12 @@ def build(path: str) -> None:
     res = b.sheet("Results", "Gas quality summary (invented gases)")
     res.table_row("", list(GASES), "")
     res.table_row("Calorific value (kind and reference chosen)", [f"=out_cv_{i + 1}" for i in range(4)],
-                  "MJ/m³", "0.00")
-    res.table_row("Wobbe index (gross)", [f"=out_wobbe_{i + 1}" for i in range(4)], "MJ/m³", "0.00")
+                  _unit("MJ/m³", "kind"), "0.00")
+    res.table_row("Wobbe index (gross)", [f"=out_wobbe_{i + 1}" for i in range(4)],
+                  _unit("MJ/m³", "gross"), "0.00")
     res.table_row("Methane number", [f"=out_mn_{i + 1}" for i in range(4)], "-", "0.0")
-    res.table_row("Fuel flow for the engine", [f"=out_fuel_flow_{i + 1}" for i in range(4)], "m³/h", "0.0")
+    res.table_row("Fuel flow for the engine", [f"=out_fuel_flow_{i + 1}" for i in range(4)],
+                  _unit("m³/h", "net", "fuel_ref"), "0.0")
     b.finish()
     b.save(path)
 

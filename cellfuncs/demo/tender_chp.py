@@ -75,13 +75,13 @@ def build(path: str) -> None:
                   note="invented pipeline gas")
 
     g = b.sheet("Gas and air", "Gas, fuel and charge air")
-    g.calc("Net calorific value (25/0)", '=GAS_CV(gas_names,gas_amounts,"net","volume","25/0")', "MJ/m³",
+    g.calc("Net calorific value (25/0)", '=GAS_CV(gas_names,gas_amounts,"net","volume","25/0")', "MJ/m³ (net, 25/0)",
            name="cv_net", fmt="0.000")
-    g.calc("Wobbe index (gross, 15/15)", '=GAS_WOBBE(gas_names,gas_amounts,"gross","15/15")', "MJ/m³",
+    g.calc("Wobbe index (gross, 15/15)", '=GAS_WOBBE(gas_names,gas_amounts,"gross","15/15")', "MJ/m³ (gross, 15/15)",
            name="wobbe", fmt="0.000")
     g.calc("Methane number (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,gas_amounts)", "-",
            name="mn_gas", fmt="0.0")
-    g.calc("Fuel gas flow (25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_kw,"net","25/0")', "m³/h",
+    g.calc("Fuel gas flow (25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_kw,"net","25/0")', "m³/h (net, 25/0)",
            name="out_fuel_flow", result=True, fmt="0.0")
     g.calc("Mixture mass flow", f'=CAC_MIXTURE_FLOW(fuel_kw,air_ratio,gas_names,gas_amounts,"net",{AMB},'
            '"mixture")', "kg/h", name="mix_flow", fmt="0")
