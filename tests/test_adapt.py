@@ -120,3 +120,28 @@ def test_extreme_inputs_are_named_not_internal_errors():
 
 def test_too_many_arguments():
     assert excel._run(LMTD, (1.0,) * 6).startswith("#VALUE! HX_LMTD: takes at most 5 arguments")
+
+
+def _old_style_cv(components, amounts=None, kind="gross"):
+    """An entry on the old convention: plain ranges and a wrapper that parses them."""
+    from cellfuncs.gas.composition import parse_composition
+    from cellfuncs.gas.iso6976 import calorific_value
+
+    return calorific_value(parse_composition(components, amounts), kind)
+
+
+def test_the_old_range_convention_keeps_working():
+    """Entries of other branches may still pass plain ranges to a cell_ wrapper."""
+    from cellfuncs.adapt import call
+    from cellfuncs.catalogue import Arg, CellFunction
+
+    old = CellFunction(
+        name="OLD_CV", target=f"{__name__}:_old_style_cv", category="cellfuncs · gas",
+        description="test", returns="[MJ/m³]",
+        args=(Arg("components", "names", kind="range"),
+              Arg("amounts", "amounts", kind="range", default=None),
+              Arg("kind", "kind", kind="option", default="gross", options=("gross", "net"))))
+    gas = [["methane", 90.0], ["ethane", 10.0]]
+    assert call(old, (gas, None)) == call(catalogue.by_name("GAS_CV"), (gas, None))
+    assert call(old, ([["methane"], ["ethane"]], [[90.0], [10.0]], "net")) == call(
+        catalogue.by_name("GAS_CV"), (gas, None, "net"))
