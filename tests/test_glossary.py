@@ -38,6 +38,9 @@ LEGACY = {
     "ENGINE_POWER", "CHP_HEAT_RATE", "CHP_PES", "CHP_BALANCE",
 }
 
+#: new functions that may break the order rule, each with its reason (empty so far)
+ORDER_EXEMPT: dict = {}
+
 CHECKED = [e for e in ENTRIES if e.name not in PENDING]
 ARGS = [(e, a) for e in CHECKED for a in e.args]
 IDS = [f"{e.name}.{a.name}" for e, a in ARGS]
@@ -176,7 +179,10 @@ def test_prefixes_and_categories():
     for e in ENTRIES:
         prefix = max((p for p in PREFIXES if e.name.startswith(p)), key=len, default=None)
         assert prefix, f"{e.name}: no known prefix (add the family's prefix to the glossary)"
-        assert e.category == "cellfuncs · " + PREFIXES[prefix][0], e.name
+        allowed = {"cellfuncs · " + PREFIXES[prefix][0]}
+        if prefix == "EXH_":  # the exhaust's emission-side functions sit with the emissions
+            allowed.add("cellfuncs · emissions")
+        assert e.category in allowed, e.name
         assert e.name == e.name.upper()
     for name in ("GEN_SPEED", "GEN_POLE_PAIRS"):
         assert "GEN_ = generator" in catalogue.by_name(name).description
@@ -186,7 +192,7 @@ def test_prefixes_and_categories():
 
 def test_order_rule_for_new_functions():
     for e in CHECKED:
-        if e.name in LEGACY:
+        if e.name in LEGACY or e.name in ORDER_EXEMPT:
             continue
         groups = [GLOSSARY[a.name][0] for a in e.args]
         assert groups == sorted(groups), (

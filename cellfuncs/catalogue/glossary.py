@@ -88,6 +88,10 @@ GLOSSARY: dict = {
     "duty_kw": (1, "kW", "Heat duty transferred."),
     "duties_kw": (1, "kW", "Duty of each stage of a chain, one row or column."),
     "heat_kw": (1, "kW", "Useful heat outputs, a range summed."),
+    "heat_flows_kw": (1, "kW", "Every heat flow leaving the plant, recovered and dumped, a range "
+                      "summed."),
+    "exhaust_loss_kw": (1, "kW", "Heat lost with the exhaust above the reference temperature."),
+    "other_losses_kw": (1, "kW", "Losses counted apart (radiation, auxiliaries)."),
     # ---- heat-transfer quantities
     "ua_kw_k": (1, "kW/K", "UA of an exchanger: overall coefficient times area."),
     "c_hot_kw_k": (1, "kW/K", "Capacity rate (mass flow times cp) of the hot stream."),
@@ -105,10 +109,14 @@ GLOSSARY: dict = {
     "electrical_efficiency": (1, "-", "Electrical efficiency as a fraction 0 to 1."),
     "thermal_efficiency": (1, "-", "Thermal (useful heat) efficiency as a fraction 0 to 1."),
     "isentropic_efficiency": (1, "-", "Isentropic efficiency of a compressor as a fraction 0 to 1."),
-    "ref_electrical_efficiency": (1, "-", "Harmonised reference efficiency for separate "
-                                  "electricity production (regulation), a fraction."),
-    "ref_thermal_efficiency": (1, "-", "Harmonised reference efficiency for separate heat "
-                               "production (regulation), a fraction."),
+    "reference_electrical_efficiency": (1, "-", "Harmonised reference efficiency for separate "
+                                        "electricity production (regulation), a fraction."),
+    "reference_thermal_efficiency": (1, "-", "Harmonised reference efficiency for separate heat "
+                                     "production (regulation), a fraction."),
+    "ref_electrical_efficiency": (1, "-", "Older name of reference_electrical_efficiency (CHP_PES "
+                                  "before issue 10)."),
+    "ref_thermal_efficiency": (1, "-", "Older name of reference_thermal_efficiency (CHP_PES before "
+                               "issue 10)."),
     "frequency_hz": (1, "Hz", "Grid frequency."),
     "pole_pairs": (1, "-", "Number of pole pairs of a generator, a whole number."),
     "speed_rpm": (1, "rpm", "Shaft speed."),
@@ -125,6 +133,21 @@ GLOSSARY: dict = {
     "activation_temperature": (4, "K", "Ignition-delay activation temperature B (activation energy "
                                "over the gas constant)."),
     "delay_pressure_exponent": (4, "-", "Pressure exponent a of the ignition-delay correlation."),
+    "stage_kinds": (1, "", 'Kind of each stage of a chain ("stream" or "loop"), one row or column.'),
+    "engine_glycol_fraction": (2, "-", "Glycol mass fraction of the engine circuits, 0 for water."),
+    "engine_glycol": (2, "", "Which glycol the engine circuits hold: ethylene or propylene."),
+    "fuel": (4, "", "Fuel category of a regulation's reference values."),
+    "construction_year": (4, "-", "Year the unit was built."),
+    "heat_use": (4, "", "How the heat is used (hot water, steam, exhaust gas directly)."),
+    "voltage_kv": (4, "kV", "Grid connection voltage."),
+    "onsite_share": (4, "-", "Share of the electricity consumed on site, 0 to 1."),
+    "altitude_m": (1, "m", "Site altitude above sea level (geopotential)."),
+    "x": (1, "-", "Where a table is read on its row axis, in the unit of x_values."),
+    "y": (1, "-", "Where a table is read on its column axis, in the unit of y_values."),
+    "x_values": (1, "", "Row axis of a table, one column or row, monotonic."),
+    "y_values": (1, "", "Tabulated values (1-D table) or the column axis (2-D table)."),
+    "table": (1, "", "The tabulated grid of a 2-D table."),
+    "so3_share": (4, "-", "Molar share of the fuel's sulphur leaving as SO3."),
     # ---- the fluid or gas
     "air_ratio": (2, "-", "Air ratio λ: dry combustion air over stoichiometric dry air."),
     "components": (2, "", "A gas analysis: a range of component names, or a two-column range of "
@@ -198,7 +221,11 @@ PREFIXES = {
     "TURBO_": ("charge air", "the turbocharger compressor"),
     "KNOCK_": ("knock", "knock screening of the engine"),
     "HW_": ("heat recovery", "hot-water circuits and chains"),
-    "EXH_": ("heat recovery", "the engine's exhaust"),
+    "EXH_": ("heat recovery", "the engine's exhaust (its emissions side: category emissions)"),
+    "EMIS_": ("emissions", "emission values and their units"),
+    "SITE_": ("site and datasheet", "the site's conditions"),
+    "TABLE_": ("site and datasheet", "reading a datasheet table"),
+    "DRYCOOLER_": ("heat recovery", "dry coolers (air-cooled heat rejection)"),
     "GEN_": ("engine", "the generator (GEN_ = generator, not general)"),
     "ENGINE_": ("engine", "the reciprocating engine"),
     "CHP_": ("plant balance", "the whole CHP plant"),
