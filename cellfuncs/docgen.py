@@ -122,6 +122,10 @@ def glossary_markdown() -> str:
               "limits": "Excel's limits"}
     for key, title in titles.items():
         out.append(f"- **{title}**: {r[key]}")
+    out += ["", "## Arrangement defaults other than counter", "", "| function | default | why |",
+            "|---|---|---|"]
+    for name, (word, why) in g.ARRANGEMENT_DEFAULTS.items():
+        out.append(f"| `{name}` | `{word}` | {_md_escape(why)} |")
     out += ["", "## Function-name prefixes", "",
             "A new function takes the prefix of its family; a new family gets a new prefix and "
             "its own category.", "",

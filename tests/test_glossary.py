@@ -11,8 +11,8 @@ from pathlib import Path
 import pytest
 
 from cellfuncs import catalogue, docgen
-from cellfuncs.catalogue.glossary import (AMBIENT_DEFAULTS, FORBIDDEN, GAS_QUALITY_FUNCTIONS,
-                                          GLOSSARY, PREFIXES, SUFFIX_UNITS)
+from cellfuncs.catalogue.glossary import (AMBIENT_DEFAULTS, ARRANGEMENT_DEFAULTS, FORBIDDEN,
+                                          GAS_QUALITY_FUNCTIONS, GLOSSARY, PREFIXES, SUFFIX_UNITS)
 from cellfuncs.catalogue.spec import RANGE_KINDS
 from cellfuncs.heat_transfer.arrangements import ALIASES, ARRANGEMENTS
 
@@ -154,7 +154,7 @@ def test_defaults_rule():
             assert a.default == value, f"{e.name}.{name}"
             assert "ISO 3046-1 standard reference conditions" in a.help, f"{e.name}.{name}"
     for e, a in _args_named("arrangement"):
-        assert a.default == ("1-2" if e.name == "HX_F" else "counter"), e.name
+        assert a.default == ARRANGEMENT_DEFAULTS.get(e.name, ("counter",))[0], e.name
     for e in ("GAS_FUEL_FLOW", "GAS_FUEL_POWER", "GAS_CV", "GAS_WOBBE"):
         d = catalogue.by_name(e).description
         assert "gross 15/15" in d and "25/0" in d, e

@@ -25,7 +25,7 @@ meaning
 from __future__ import annotations
 
 __all__ = ["GLOSSARY", "GROUPS", "SUFFIX_UNITS", "FORBIDDEN", "GAS_QUALITY_FUNCTIONS",
-           "AMBIENT_DEFAULTS", "PREFIXES", "RULES"]
+           "AMBIENT_DEFAULTS", "ARRANGEMENT_DEFAULTS", "PREFIXES", "RULES"]
 
 GROUPS = {1: "what it is computed on", 2: "the fluid or gas", 3: "site conditions", 4: "options"}
 
@@ -210,6 +210,13 @@ GAS_QUALITY_FUNCTIONS = frozenset(("GAS_CV", "GAS_WOBBE", "GAS_CV_UNCERTAINTY"))
 #: defaults of the ambient arguments (ISO 3046-1 standard reference conditions)
 AMBIENT_DEFAULTS = {"t_ambient": 25.0, "rh_ambient": 0.3, "p_ambient_bar": 1.0}
 
+#: arrangement defaults other than "counter", each with its reason (the defaults rule)
+ARRANGEMENT_DEFAULTS = {
+    "HX_F": ("1-2", "F is relative to counterflow (F = 1 there), so a counter default would "
+             "always return 1; 1-2 is the commonest shell-and-tube exchanger"),
+    "DRYCOOLER_UA": ("cross", "a dry cooler is a finned crossflow coil"),
+}
+
 #: function-name prefixes and the family (category) each belongs to
 PREFIXES = {
     "UNIT_": ("general", "unit conversion"),
@@ -265,8 +272,7 @@ RULES = {
                 "help and in the demos' unit cells, e.g. \"MJ/m³ (gross, 15/15)\". Ambient "
                 "arguments default to t_ambient = 25 °C, rh_ambient = 0.3, p_ambient_bar = 1.0 "
                 "(ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa). "
-                "Arrangement arguments default to \"counter\", except HX_F: F is relative to "
-                "counterflow (F = 1 there), so its default stays \"1-2\", the commonest "
-                "shell-and-tube exchanger.",
+                "Arrangement arguments default to \"counter\", except where the table of "
+                "arrangement defaults below gives another word with its reason (HX_F: \"1-2\").",
     "limits": "no text result longer than 255 characters (Excel's limit).",
 }
