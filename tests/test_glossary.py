@@ -224,3 +224,24 @@ def test_gas_components_index_gives_one_name():
     assert [excel.GAS_COMPONENTS(i) for i in range(1, len(names) + 1)] == names
     for bad in (0, len(names) + 1, 1.5):
         assert excel.GAS_COMPONENTS(bad).startswith("#NUM! index:")
+
+
+def test_gas_analysis_arguments_come_in_pairs():
+    """kind "gas" is followed by kind "amounts" (named components/amounts); "amounts" and
+    "amount_uncertainties" never stand alone, and an old-convention pair (kind "range") is
+    never mixed with the new kinds (a merge of the two conventions would misparse)."""
+    for e in ENTRIES:
+        kinds = [a.kind for a in e.args]
+        for i, a in enumerate(e.args):
+            if a.kind == "gas":
+                assert a.name == "components", e.name
+                assert i + 1 < len(kinds) and kinds[i + 1] == "amounts", (
+                    f"{e.name}: components of kind 'gas' must be followed by amounts of kind 'amounts'")
+            if a.kind == "amounts":
+                assert a.name == "amounts" and i > 0 and kinds[i - 1] == "gas", e.name
+            if a.kind == "amount_uncertainties":
+                assert "gas" in kinds[:i], e.name
+            if a.name in ("components", "amounts") and a.kind == "range":
+                other = "amounts" if a.name == "components" else "components"
+                assert all(b.kind == "range" for b in e.args if b.name == other), (
+                    f"{e.name}: {a.name} is a plain range but {other} is not")
