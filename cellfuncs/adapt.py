@@ -11,20 +11,32 @@ handed over.  The rules, the same for both:
   an omitted argument ``F(1,,3)`` over as 0);
 * option words are matched case-insensitively with surrounding spaces ignored;
 * a range argument becomes a tuple of rows of cells (float, str or ``None``);
-  a scalar becomes ``((v,),)`` and a 1-D list a column.
+  a scalar becomes ``((v,),)`` and a 1-D list a column;
+* a gas analysis (a ``gas`` argument and the ``amounts`` argument after it) is
+  parsed here, once, into a :class:`~cellfuncs.gas.composition.Composition`
+  (cached on the ranges); the core receives the composition in the ``gas``
+  position and no ``amounts`` position.  Results of functions taking a gas
+  analysis are cached on their coerced arguments (a sheet asks the same gas
+  many times);
+* an error the core raises names its own parameter (``lambda_: ...``); the
+  message is given back with the catalogue's name for that position
+  (``air_ratio: ...``), so a cell always speaks the glossary's names.
 
 Errors are :class:`~cellfuncs.errors.CellInputError`; the adapters render them.
 """
 
 from __future__ import annotations
 
+import functools
+import inspect
 import itertools
 import math
+import re
 
-from cellfuncs.catalogue.spec import REQUIRED, CellFunction
+from cellfuncs.catalogue.spec import RANGE_KINDS, REQUIRED, CellFunction
 from cellfuncs.errors import CellInputError, CellTypeError
 
-__all__ = ["coerce_args", "call", "result_to_cells", "is_blank"]
+__all__ = ["coerce_args", "call", "result_to_cells", "is_blank", "core_names"]
 
 _NUMBER_TYPES = (int, float)
 
@@ -132,8 +144,10 @@ def _range(arg, v):
 
 def _one(arg, v):
     kind = arg.kind
-    if kind == "range":
+    if kind in RANGE_KINDS:
         if v is None or (isinstance(v, str) and v.strip() == ""):
+            if kind == "amounts":  # may always be left empty (two-column components range)
+                return None
             if arg.optional:
                 return arg.default
             raise CellTypeError(f"{arg.name}: a range is required (got a blank)")
@@ -155,12 +169,21 @@ def _one(arg, v):
         if not isinstance(v, str):
             raise CellTypeError(f"{arg.name}: {v!r} is not one of " + ", ".join(arg.options))
         word = v.strip().lower()
+        if word not in arg.options and " " in word:
+            word = "".join(word.split())  # inner spaces are ignored too ("EN 16726")
         if word in arg.options:
             return word
         alias = {k.lower(): w for k, w in arg.aliases.items()}.get(word)
         if alias is not None:
             return alias
         raise CellTypeError(f"{arg.name}: {v.strip()!r} is not one of " + ", ".join(arg.options))
+    if kind == "reference":
+        if isinstance(v, str):
+            if _numeric_text(v):
+                raise CellTypeError(f"{arg.name}: text {v.strip()!r} is neither a number nor "
+                                    '"t1/t2" (enter the number as a number)')
+            return v.strip()
+        return _number(arg, v)
     if kind == "text":
         if isinstance(v, bool) or not isinstance(v, str):
             if isinstance(v, _NUMBER_TYPES):
@@ -173,8 +196,8 @@ def _one(arg, v):
 _isfinite = math.isfinite
 
 
-def coerce_args(entry: CellFunction, values: tuple) -> list:
-    """Coerce raw cell values (missing trailing ones = blank) to core inputs."""
+def _coerce_cells(entry: CellFunction, values: tuple) -> list:
+    """Coerce raw cell values (missing trailing ones = blank), one per catalogue argument."""
     args = entry.args
     n = len(values)
     if n > len(args):
@@ -186,13 +209,155 @@ def coerce_args(entry: CellFunction, values: tuple) -> list:
         # fast paths: what Excel hands over for a number cell, an option word, a blank
         if type(v) is float and kind == "number" and _isfinite(v):
             out.append(v)
-        elif v is None and arg.default is not REQUIRED and kind != "range":
+        elif v is None and arg.default is not REQUIRED and kind not in RANGE_KINDS:
             out.append(arg.default)
         elif type(v) is str and kind == "option" and v in arg.options:
             out.append(v)
         else:
             out.append(_one(arg, v))
     return out
+
+
+_GAS_KINDS = frozenset(("gas", "amounts", "amount_uncertainties"))
+
+
+_HAS_GAS: dict = {}
+
+
+def _has_gas(entry: CellFunction) -> bool:
+    key = (entry.name, entry.target, len(entry.args))
+    found = _HAS_GAS.get(key)
+    if found is None:
+        found = _HAS_GAS[key] = any(a.kind in _GAS_KINDS for a in entry.args)
+    return found
+
+
+def coerce_args(entry: CellFunction, values: tuple) -> list:
+    """The core's positional arguments from raw cell values.
+
+    Every value is coerced by its argument's kind; a gas analysis (``gas`` +
+    ``amounts``) is parsed into one Composition, so the list is one shorter
+    per ``amounts`` argument than ``entry.args``.
+    """
+    out = _coerce_cells(entry, values)
+    if not _has_gas(entry):
+        return out
+    return _fold_gas(entry, out)
+
+
+def _rename(exc: CellInputError, mapping: dict) -> CellInputError:
+    """The same error with argument names replaced (whole identifiers only)."""
+    mapping = {k: v for k, v in mapping.items() if k and v and k != v}
+    if not mapping:
+        return exc
+    msg = exc.message
+    pattern = r"(?<![A-Za-z0-9_])(" + "|".join(map(re.escape, sorted(mapping, key=len, reverse=True))) \
+        + r")(?![A-Za-z0-9_])"
+    new = re.sub(pattern, lambda m: mapping[m.group(1)], msg)
+    if new == msg:
+        return exc
+    out = CellInputError(new)
+    out.excel_error = exc.excel_error  # keep #VALUE! or #NUM!
+    return out
+
+
+@functools.lru_cache(maxsize=1024)
+def _parse_plain(components: tuple, amounts):
+    """parse_composition cached on ranges of floats, text and blanks only (no booleans,
+    which would compare equal to 1.0 and 0.0 in the cache key)."""
+    from cellfuncs.gas.composition import parse_composition
+
+    return parse_composition(components, amounts)
+
+
+def _plain(rows) -> bool:
+    # rows come from _range: always a tuple of tuples of cells
+    return type(rows) is tuple and _PLAIN_RANGE_TYPES.issuperset(map(type, _chain(rows)))
+
+
+def _parse_gas(gas_arg, amounts_arg, components, amounts):
+    from cellfuncs.gas.composition import parse_composition
+
+    try:
+        if _plain(components) and (amounts is None or _plain(amounts)):
+            return _parse_plain(components, amounts)
+        return parse_composition(components, amounts)
+    except CellInputError as exc:
+        names = {"components": gas_arg.name,
+                 "fractions": amounts_arg.name if amounts_arg is not None else "amounts"}
+        raise _rename(exc, names) from None
+
+
+def _uncertainties(arg, v, gas):
+    """{component id: standard uncertainty as a mole fraction} for a gas analysis."""
+    from cellfuncs.gas.composition import paired_amounts
+
+    components, comp = gas
+    if comp is None:
+        raise CellInputError(f"{arg.name}: no gas analysis is given to pair the uncertainties with")
+    raw = paired_amounts(components, v, arg.name)
+    return {i: u / comp.total for i, u in raw.items() if u > 0}
+
+
+def _fold_gas(entry: CellFunction, cells: list) -> list:
+    args = entry.args
+    out = []
+    gas = (None, None)
+    for i, arg in enumerate(args):
+        kind = arg.kind
+        v = cells[i]
+        if kind == "gas":
+            nxt = args[i + 1] if i + 1 < len(args) and args[i + 1].kind == "amounts" else None
+            amounts = cells[i + 1] if nxt is not None else None
+            if v is None:
+                if amounts is not None:
+                    raise CellTypeError(f"{arg.name}: blank, but {nxt.name} is given; give the "
+                                        "component names too")
+                gas = (None, None)
+                out.append(None)
+            else:
+                comp = _parse_gas(arg, nxt, v, amounts)
+                gas = (v, comp)
+                out.append(comp)
+        elif kind == "amounts":
+            continue  # folded into the gas argument before it
+        elif kind == "amount_uncertainties":
+            out.append(_uncertainties(arg, v, gas))
+        else:
+            out.append(v)
+    return out
+
+
+def core_names(entry: CellFunction) -> dict:
+    """Core parameter name -> catalogue argument name, position by position."""
+    names = [a.name for a in entry.args if a.kind != "amounts"]
+    try:
+        params = [p.name for p in inspect.signature(entry.resolve()).parameters.values()
+                  if p.kind in (p.POSITIONAL_ONLY, p.POSITIONAL_OR_KEYWORD)]
+    except (TypeError, ValueError):  # pragma: no cover - builtins without a signature
+        return {}
+    return dict(zip(params, names))
+
+
+_CORE_FNS: dict = {}
+
+
+@functools.lru_cache(maxsize=4096)
+def _cached_core(target: str, args: tuple):
+    return _CORE_FNS[target](*args)
+
+
+def _call_core(entry: CellFunction, args: list):
+    fn = entry.resolve()
+    if not _has_gas(entry):
+        return fn(*args)
+    key = tuple(args)
+    try:
+        hash(key)
+    except TypeError:  # e.g. the uncertainties dict: not cached
+        return fn(*args)
+    _CORE_FNS[entry.target] = fn
+    return _cached_core(entry.target, key)
 
 
 def _check_out(entry, v):
@@ -246,9 +411,14 @@ def call(entry: CellFunction, values: tuple):
     """
     coerced = coerce_args(entry, values)
     try:
-        return result_to_cells(entry, entry.resolve()(*coerced))
+        return result_to_cells(entry, _call_core(entry, coerced))
+    except CellInputError as exc:
+        renamed = _rename(exc, core_names(entry))
+        if renamed is exc:
+            raise
+        raise renamed from None
     except (FloatingPointError, OverflowError, ZeroDivisionError):
-        for arg, v in zip(entry.args, coerced):
+        for arg, v in zip([a for a in entry.args if a.kind != "amounts"], coerced):
             if type(v) is float and (abs(v) > EXTREME_HIGH or 0.0 < abs(v) < EXTREME_LOW):
                 raise CellInputError(f"{arg.name}: {v:.4g} is too extreme for {entry.name} "
                                      "(the result overflows)") from None

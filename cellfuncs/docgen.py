@@ -1,11 +1,12 @@
-"""Text and Markdown views of the catalogue (``cellfuncs functions``, docs/functions.md)."""
+"""Text and Markdown views of the catalogue (``cellfuncs functions``, docs/functions.md)
+and of the naming glossary (docs/glossary.md: ``python -m cellfuncs.docgen --glossary``)."""
 
 from __future__ import annotations
 
 from cellfuncs import catalogue
 
 __all__ = ["functions_text", "functions_markdown", "function_text", "function_markdown", "find_entry",
-           "unknown_name_line"]
+           "unknown_name_line", "glossary_markdown"]
 
 
 def _signature(e) -> str:
@@ -134,3 +135,63 @@ def _markdown_lines(e) -> list:
 def function_markdown(e) -> str:
     """One function's section of docs/functions.md."""
     return "\n".join(_markdown_lines(e))
+def glossary_markdown() -> str:
+    """docs/glossary.md, generated from :mod:`cellfuncs.catalogue.glossary`."""
+    from cellfuncs.catalogue import glossary as g
+
+    r = g.RULES
+    out = [
+        "# Naming glossary",
+        "",
+        "Generated from `cellfuncs/catalogue/glossary.py` by `python -m cellfuncs.docgen "
+        "--glossary > docs/glossary.md`; do not edit by hand. `tests/test_glossary.py` checks "
+        "every argument of every cell function against this table and fails when this file "
+        "is stale.",
+        "",
+        "One name for one thing across all families. Function names and argument positions of "
+        "existing functions never change (workbooks call them by position); argument names, "
+        "help, validity ranges and stated defaults may, each change listed in CHANGELOG.md.",
+        "",
+        "## Rules",
+        "",
+    ]
+    titles = {"temperatures": "Temperatures", "pressures": "Pressures", "units": "Unit suffixes",
+              "ratios": "Ratios and efficiencies", "gas": "Gas analysis",
+              "words": "Option words", "order": "Order of arguments (new functions)",
+              "positions": "Existing functions", "per_cell": "Per-cell results",
+              "names": "Function names", "defaults": "Defaults",
+              "limits": "Excel's limits"}
+    for key, title in titles.items():
+        out.append(f"- **{title}**: {r[key]}")
+    out += ["", "## Arrangement defaults other than counter", "", "| function | default | why |",
+            "|---|---|---|"]
+    for name, (word, why) in g.ARRANGEMENT_DEFAULTS.items():
+        out.append(f"| `{name}` | `{word}` | {_md_escape(why)} |")
+    out += ["", "## Function-name prefixes", "",
+            "A new function takes the prefix of its family; a new family gets a new prefix and "
+            "its own category.", "",
+            "| prefix | category | what it covers |", "|---|---|---|"]
+    for prefix, (family, what) in g.PREFIXES.items():
+        out.append(f"| `{prefix}` | cellfuncs · {family} | {_md_escape(what)} |")
+    out += ["", "## Argument names", "",
+            "Group = place in the argument list of a new function: " + "; ".join(
+                f"{k} {v}" for k, v in g.GROUPS.items()) + ". Unit = the unit at the cell "
+            "(blank: words, text, or a range whose unit the help states).", "",
+            "| name | group | unit | meaning |", "|---|---|---|---|"]
+    for name in sorted(g.GLOSSARY):
+        group, unit, meaning = g.GLOSSARY[name]
+        out.append(f"| `{name}` | {group} | {_md_escape(unit)} | {_md_escape(meaning)} |")
+    out += ["", "## Names not to use", "", "| not | but |", "|---|---|"]
+    for bad, good in sorted(g.FORBIDDEN.items()):
+        out.append(f"| `{bad}` | {_md_escape(good)} |")
+    out.append("")
+    return "\n".join(out)
+
+
+if __name__ == "__main__":  # pragma: no cover - a developer's command
+    import sys
+
+    if sys.argv[1:] == ["--glossary"]:
+        sys.stdout.write(glossary_markdown())
+    else:
+        sys.stdout.write(functions_markdown())

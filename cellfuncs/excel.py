@@ -20,6 +20,7 @@ import xlwings as xw
 
 from cellfuncs import catalogue
 from cellfuncs.adapt import call as _adapt_call
+from cellfuncs.catalogue.spec import RANGE_KINDS
 from cellfuncs.errors import CellInputError
 
 __all__: list = []
@@ -28,11 +29,20 @@ __all__: list = []
 INTERNAL_ERROR = "#VALUE! internal error: "
 
 
+#: longest text a cell may show (a longer returned text shows #VALUE! in Excel)
+TEXT_MAX = 255
+
+
+def _fit(text: str) -> str:
+    """An error text cut to Excel's 255 characters (a long echoed input is shortened)."""
+    return text if len(text) <= TEXT_MAX else text[:TEXT_MAX - 1] + "…"
+
+
 def _run(entry, values):
     try:
         return _adapt_call(entry, values)
     except CellInputError as exc:
-        return exc.cell_text()
+        return _fit(exc.cell_text())
     except Exception as exc:  # noqa: BLE001 - a cell must never show a traceback
         text = " ".join(f"{type(exc).__name__}: {exc}".split())
         return INTERNAL_ERROR + text[:200]
@@ -55,7 +65,7 @@ def _make(entry):
     fn.__qualname__ = entry.name
     # decorators: ret/arg first (innermost), func topmost
     for a in reversed(entry.args):
-        if a.kind == "range":
+        if a.kind in RANGE_KINDS:
             # always rows of cells: xlwings would flatten a one-row or one-column range
             fn = xw.arg(a.name, ndim=2, doc=a.full_help()[:255])(fn)
         else:

@@ -30,9 +30,9 @@ def call_entry(name: str, row: dict):
     for a in entry.args:
         if a.name == "components":
             args.append(names)
-        elif a.name == "fractions":
+        elif a.name == "amounts":
             args.append(amounts)
-        elif a.name == "u_fractions":
+        elif a.name == "amount_uncertainties":
             args.append(u)
         else:
             v = row.get(a.name)
@@ -43,4 +43,6 @@ def call_entry(name: str, row: dict):
             elif a.kind == "text":
                 v = str(v)
             args.append(v)
-    return entry.resolve()(*args)
+    from cellfuncs.adapt import call
+
+    return call(entry, tuple(args))

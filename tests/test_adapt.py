@@ -10,6 +10,7 @@ import schedula as sh
 
 from cellfuncs import catalogue, excel, headless
 from cellfuncs.adapt import coerce_args
+from cellfuncs.errors import CellInputError, CellTypeError
 
 LMTD = catalogue.by_name("HX_LMTD")
 CV = catalogue.by_name("GAS_CV")
@@ -27,7 +28,7 @@ def test_options_are_case_and_space_insensitive():
     par = ht.LMTD(100, 60, 30, 40.2, counterflow=False)
     for word in ("parallel", "PARALLEL", "  Parallel "):
         assert excel.HX_LMTD(100, 60, 30, 40.2, word) == pytest.approx(par, rel=1e-12)
-    assert excel.HX_LMTD(100, 60, 30, 40.2, "sideways").startswith("#VALUE! flow: 'sideways' is not one of")
+    assert excel.HX_LMTD(100, 60, 30, 40.2, "sideways").startswith("#VALUE! arrangement: 'sideways' is not one of")
 
 
 def test_text_booleans_and_blanks_are_refused_for_numbers():
@@ -62,8 +63,47 @@ def test_ranges_in_every_shape_give_the_same_gas():
 
 
 def test_range_cells_reach_the_core_as_float_str_or_none():
-    coerced = coerce_args(CV, ([["methane", 1], [" ", True]], None))
+    from cellfuncs.adapt import _coerce_cells
+
+    coerced = _coerce_cells(CV, ([["methane", 1], [" ", True]], None))
     assert coerced[0] == (("methane", 1.0), (None, True))
+
+
+def test_a_gas_analysis_reaches_the_core_parsed_once():
+    """kind "gas" + "amounts": the core gets one Composition; the amounts position is folded."""
+    from cellfuncs.gas.composition import Composition
+
+    two_col = coerce_args(CV, ([["methane", 90.0], ["ethane", 10.0]], None))
+    split = coerce_args(CV, ([["methane"], ["ethane"]], [[90.0], [10.0]]))
+    assert isinstance(two_col[0], Composition) and two_col == split
+    assert len(two_col) == len(CV.args) - 1
+    assert two_col[0].get("CH4") == pytest.approx(0.9, abs=1e-15)  # normalised (ISO 6976:2016 cl. 5)
+    with pytest.raises(CellInputError, match="^amounts:"):
+        coerce_args(CV, ([["methane"], ["ethane"]], [[90.0]]))
+
+
+def test_core_errors_speak_the_catalogue_names():
+    from cellfuncs.adapt import call
+    from cellfuncs.catalogue import by_name
+
+    with pytest.raises(CellInputError, match="^isentropic_efficiency:"):
+        call(by_name("TURBO_T_OUT"), (25.0, 1.0, 3.0, 1.5))
+    with pytest.raises(CellInputError, match="^ref_conditions:"):
+        call(by_name("GAS_Z"), ([["methane", 100.0]], None, 17.0))
+
+
+def test_gas_z_takes_the_reference_text_or_a_number():
+    """ISO 6976:2016 clause 3: "t1/t2" is combustion/metering; Z depends on t2 only."""
+    from cellfuncs.adapt import call
+    from cellfuncs.catalogue import by_name
+
+    gas = [["methane", 90.0], ["ethane", 10.0]]
+    for name in ("GAS_Z", "GAS_DENSITY", "GAS_REL_DENSITY"):
+        e = by_name(name)
+        assert call(e, (gas, None, "25/0")) == call(e, (gas, None, 0.0)) == call(e, (gas, None, "15/0"))
+        assert call(e, (gas, None, "15/15")) == call(e, (gas, None, 15.0)) == call(e, (gas, None))
+        with pytest.raises(CellTypeError):
+            call(e, (gas, None, "15"))  # numeric text is refused, as for every number
 
 
 def test_errors_pass_through_the_engine():
@@ -80,3 +120,28 @@ def test_extreme_inputs_are_named_not_internal_errors():
 
 def test_too_many_arguments():
     assert excel._run(LMTD, (1.0,) * 6).startswith("#VALUE! HX_LMTD: takes at most 5 arguments")
+
+
+def _old_style_cv(components, amounts=None, kind="gross"):
+    """An entry on the old convention: plain ranges and a wrapper that parses them."""
+    from cellfuncs.gas.composition import parse_composition
+    from cellfuncs.gas.iso6976 import calorific_value
+
+    return calorific_value(parse_composition(components, amounts), kind)
+
+
+def test_the_old_range_convention_keeps_working():
+    """Entries of other branches may still pass plain ranges to a cell_ wrapper."""
+    from cellfuncs.adapt import call
+    from cellfuncs.catalogue import Arg, CellFunction
+
+    old = CellFunction(
+        name="OLD_CV", target=f"{__name__}:_old_style_cv", category="cellfuncs · gas",
+        description="test", returns="[MJ/m³]",
+        args=(Arg("components", "names", kind="range"),
+              Arg("amounts", "amounts", kind="range", default=None),
+              Arg("kind", "kind", kind="option", default="gross", options=("gross", "net"))))
+    gas = [["methane", 90.0], ["ethane", 10.0]]
+    assert call(old, (gas, None)) == call(catalogue.by_name("GAS_CV"), (gas, None))
+    assert call(old, ([["methane"], ["ethane"]], [[90.0], [10.0]], "net")) == call(
+        catalogue.by_name("GAS_CV"), (gas, None, "net"))

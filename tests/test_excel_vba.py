@@ -10,6 +10,7 @@ import types
 import pytest
 
 from cellfuncs import catalogue
+from cellfuncs.catalogue.spec import RANGE_KINDS
 
 
 @pytest.fixture()
@@ -87,4 +88,4 @@ def test_category_and_help_survive(windows_excel_module):
             assert 0 < len(xa["doc"]) <= 255
             assert ("optional" in xa) == a.optional
             # ranges arrive as rows of cells whatever their shape (a one-row range stays a row)
-            assert (xa["options"].get("ndim") == 2) == (a.kind == "range")
+            assert (xa["options"].get("ndim") == 2) == (a.kind in RANGE_KINDS)

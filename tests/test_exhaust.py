@@ -150,17 +150,26 @@ def test_flow_methane_lambda_one_is_stoich_air_plus_fuel():
         combustion.air_requirement(parse_composition(METHANE), "mass"), rel=1e-12)
 
 
-def test_cell_wrappers_take_ranges():
+def test_cell_functions_take_ranges():
+    """The gas analysis is parsed at the cell boundary (adapt), the same for both shapes."""
+    from cellfuncs import adapt
+    from cellfuncs.catalogue import by_name
+
+    def cell(name, *v):
+        return adapt.call(by_name(name), v)
+
     comps, fracs = (("methane",), ("ethane",)), ((95.0,), (5.0,))
     two_col = (("methane", 95.0), ("ethane", 5.0))
-    a = ex.cell_exh_flow(1000.0, 1.8, comps, fracs)
-    b = ex.cell_exh_flow(1000.0, 1.8, two_col, None)
+    a = cell("EXH_FLOW", 1000.0, 1.8, comps, fracs)
+    b = cell("EXH_FLOW", 1000.0, 1.8, two_col, None)
     assert a == b > 0
-    y = ex.cell_exh_composition(1.8, comps, fracs, "o2", "dry")
+    y = cell("EXH_COMPOSITION", 1.8, comps, fracs, "o2", "dry")
     assert 0.05 < y < 0.12
-    assert ex.cell_exh_composition(1.8, comps, fracs, "h2o", "dry") == 0.0
-    assert ex.cell_exh_dewpoint(1.8, comps, fracs) > 40
-    assert ex.cell_exh_heat(5000.0, 450.0, 120.0, 1.8, comps, fracs) > 0
+    assert cell("EXH_COMPOSITION", 1.8, two_col, None, "h2o", "dry") == 0.0
+    assert cell("EXH_DEWPOINT", 1.8, comps, fracs) > 40
+    assert cell("EXH_HEAT", 5000.0, 450.0, 120.0, 1.8, comps, fracs) > 0
+    with pytest.raises(CellInputError, match="^air_ratio:"):
+        cell("EXH_FLOW", 1000.0, 0.5, comps, fracs)
 
 
 def test_stack_temperature_error_names_dew_point():

@@ -488,7 +488,40 @@ def test_core_never_crashes(data):
     except CellInputError as exc:
         msg = str(exc)
         assert "\n" not in msg
-        assert any(a.name in msg for a in entry.args), msg
+        from cellfuncs.adapt import core_names  # the core names its own parameters
+
+        assert any(n in msg for n in [a.name for a in entry.args] + list(core_names(entry))), msg
         return
     vals = out if isinstance(out, list) else [out]
     assert all(isinstance(v, float) and math.isfinite(v) for v in vals), (args, out)
+
+
+def test_f_at_the_one_shell_limit_is_infeasible():
+    """HX_F(80,40,20,50,"1-2"): R = 40/30 = 4/3, P = 30/60 = 0.5 and the largest P of one
+    shell, 2/(1 + R + sqrt(1 + R²)) = 2/(1 + 4/3 + 5/3) = 0.5 (Bowman, Mueller & Nagle 1940,
+    the 1-2 F expression's logarithm diverges there; Shah & Sekulic 2003, Table 3.3 as
+    NTU -> inf).  F -> 0, i.e. an infinite area: an error, not a small F (issue 10 found 0.055)."""
+    r = 40.0 / 30.0
+    assert 2.0 / (1.0 + r + math.sqrt(1.0 + r * r)) == pytest.approx(0.5, abs=1e-15)
+    for fn, args in ((correction_factor, (80.0, 40.0, 20.0, 50.0, "1-2")),
+                     (ua_required, (100.0, 80.0, 40.0, 20.0, 50.0, "1-2")),
+                     (area_required, (100.0, 500.0, 80.0, 40.0, 20.0, 50.0, "1-2"))):
+        msg = _raises(fn, *args, names=["t_hot_out", "t_cold_out"])
+        assert "infinite area" in msg and "use more shells" in msg
+    from cellfuncs import excel
+
+    assert excel.HX_F(80, 40, 20, 50, "1-2").startswith("#NUM! t_hot_out, t_cold_out:")
+    # just short of the limit F is small but finite, and two shells reach it easily
+    f = correction_factor(80.0, 40.0, 20.0, 49.9, "1-2")
+    assert 0.0 < f < 0.5
+    assert correction_factor(80.0, 40.0, 20.0, 50.0, "2-4") > 0.8
+
+
+def test_hx_f_default_arrangement_is_one_shell():
+    """HX_F keeps "1-2" as its default (F of "counter" is 1 by definition); every other
+    arrangement argument defaults to "counter" (glossary, defaults rule)."""
+    e = by_name("HX_F")
+    assert e.args[-1].default == "1-2" and "F = 1" in e.args[-1].help
+    for name in ("HX_LMTD", "HX_UA", "HX_AREA", "HX_EFFECTIVENESS", "HX_NTU", "HX_RATE"):
+        arr = [a for a in by_name(name).args if a.name == "arrangement"]
+        assert arr and arr[0].default == "counter", name

@@ -94,7 +94,8 @@ def test_defaults_are_the_documented_values():
     """Defaults as the module text states them (B, a from a GRI-Mech 3.0 fit; k after Bade Shrestha & Rodrigues 2008; n common practice)."""
     e = by_name("KNOCK_MARGIN")
     d = {a.name: a.default for a in e.args}
-    assert (d["k_per_mn"], d["n_poly"], d["activation_k"], d["pressure_exp"], d["output"]) == (
+    assert (d["k_per_mn"], d["polytropic_exponent"], d["activation_temperature"],
+            d["delay_pressure_exponent"], d["unit"]) == (
         0.8, 1.35, 19600.0, 0.85, "k")
 
 

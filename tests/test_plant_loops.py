@@ -21,7 +21,8 @@ from cellfuncs.recovery import water
 from cellfuncs.recovery.chain import cell_chain_check, cell_chain_rate, rate_chain_water
 from cellfuncs.recovery.drycooler import drycooler_air_flow, drycooler_ua
 from cellfuncs.recovery.engine_loop import cell_hw_engine_loop, engine_loop
-from cellfuncs.recovery.exhaust import cell_exh_heat
+from cellfuncs.gas.composition import parse_composition
+from cellfuncs.recovery.exhaust import exhaust_heat
 from cellfuncs.recovery.exhaust_loss import cell_exh_loss
 from cellfuncs.recovery.plant import chp_balance_check, chp_pes, grid_loss_factor, pes_reference
 
@@ -298,7 +299,7 @@ def test_exh_loss_difference_is_exh_heat(t1, t2, m, lam, rh, t_amb):
     a = cell_exh_loss(m, t1, lam, *NG, 25.0, t_amb, rh, 1.0)
     b = cell_exh_loss(m, t2, lam, *NG, 25.0, t_amb, rh, 1.0)
     try:
-        q = cell_exh_heat(m, t1, t2, lam, *NG, t_amb, rh, 1.0)
+        q = exhaust_heat(m, t1, t2, lam, parse_composition(*NG), t_amb, rh, 1.0)
     except CellInputError:  # t2 below the dew point: EXH_HEAT refuses
         assume(False)
     assert a - b == pytest.approx(q, rel=1e-9, abs=1e-9)

@@ -37,7 +37,7 @@ def value_for(arg):
     if arg.kind == "option":
         opts = list(arg.options) + [o.upper() for o in arg.options] + [f"  {o} " for o in arg.options]
         return st.one_of(st.sampled_from(opts), texts, st.none(), numbers)
-    if arg.kind == "text":
+    if arg.kind in ("text", "reference"):
         return st.one_of(texts, st.none(), numbers)
     return st.one_of(blocks, cells)
 

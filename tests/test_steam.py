@@ -70,10 +70,11 @@ def test_hand_calculation():
     The function gives 1458.07 kg/h, 946.231 kW, 146.879 °C: within 1e-4 and 0.04 K, the
     IF97-IAPWS-95 difference in h' (0.17 kJ/kg at 10 bar).
     """
-    from cellfuncs.recovery.exhaust import cell_exh_heat
+    from cellfuncs.gas.composition import parse_composition
+    from cellfuncs.recovery.exhaust import exhaust_heat
 
     ts = 453.035632 - 273.15
-    q_ev = cell_exh_heat(10000.0, 450.0, ts + 10.0, 1.8, NAMES, AMOUNTS)
+    q_ev = exhaust_heat(10000.0, 450.0, ts + 10.0, 1.8, parse_composition(NAMES, AMOUNTS))
     assert q_ev == pytest.approx(815.887, abs=1e-3)
     b = steam_balance(10000.0, 450.0, 1.8, GAS, 10.0, 105.0, 10.0, 0.0)
     assert b["evaporator_kw"] == pytest.approx(q_ev, rel=1e-8)       # same gas enthalpy, T_s to 1e-9

@@ -14,8 +14,8 @@ def test_unit_vectors(row):
 
 
 def test_excel_cell_shows_the_reason():
-    assert excel.UNIT_CONVERT(1, "kg", "m").startswith("#NUM! to_unit: cannot convert 'kg'")
-    assert excel.UNIT_CONVERT(1, "flurbs per gallon", "m").startswith("#VALUE! from_unit:")
+    assert excel.UNIT_CONVERT(1, "kg", "m").startswith("#NUM! unit_wanted: cannot convert 'kg'")
+    assert excel.UNIT_CONVERT(1, "flurbs per gallon", "m").startswith("#VALUE! unit_given:")
     assert excel.UNIT_CONVERT("12", "bar", "psi").startswith("#VALUE! value: text '12' is not a number")
 
 

@@ -29,6 +29,24 @@ def _num(text: str):
         return text
 
 
+#: argument names renamed by the glossary (issue 10): the older column that holds each
+#: in the vector files (a file's column may serve several functions' renamed arguments)
+RENAMED_COLUMNS = {
+    "air_ratio": "lambda_", "amounts": "fractions", "amount_uncertainties": "u_fractions",
+    "ref_conditions": "ref", "unit_given": "from_unit", "unit_wanted": "to_unit",
+    "u_w_m2_k": "u_w_m2k", "isentropic_efficiency": "eta_is", "p_air_in_bar": "p_in_bar",
+    "p_air_out_bar": "p_out_bar", "t_air_in": "t_in", "t_mixture_in": "t_in",
+    "t_mixture_out": "t_out", "t_exhaust_in": "t_in", "t_exhaust_out": "t_out",
+    "t_water_in": "t_in", "t_water_out": "t_out", "t_water": "t", "p_boost_bar": "p_bar",
+    "p_exhaust_bar": "p_bar", "fuel_flow_m3_h": "flow_m3h", "water_flow_m3_h": "flow_m3h",
+    "t_mixture_ref": "t_ref", "p_boost_ref_bar": "p_ref_bar", "methane_number_ref": "mn_ref",
+    "polytropic_exponent": "n_poly", "activation_temperature": "activation_k",
+    "delay_pressure_exponent": "pressure_exp", "moisture": "basis",
+    "o2_measured_pct": "o2_measured", "o2_reference_pct": "o2_reference",
+    "result": "output", "unit": "output", "arrangement": "flow",
+}
+
+
 def load(topic: str) -> list:
     """Rows of ``tests/vectors/<topic>.csv`` as dicts (numbers parsed)."""
     path = VECTOR_DIR / f"{topic}.csv"
@@ -43,6 +61,11 @@ def load(topic: str) -> list:
         d = {k: (v if k in ("function", "source", "locator", "note") else _num(v))
              for k, v in r.items()}
         d["atol"] = d.get("atol") or 0.0
+        for new, old in RENAMED_COLUMNS.items():
+            if old in d and d.get(new) in (None, ""):
+                d[new] = d[old]
+        if "part" in d and d.get("result") in (None, ""):
+            d["result"] = d["part"]
         out.append(d)
     return out
 

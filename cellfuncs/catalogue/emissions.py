@@ -9,22 +9,22 @@ COMPONENTS_OPT = Arg(
     "components",
     "Range of gas component names (formula or name, e.g. CH4, methane), or a two-column range of "
     "names and amounts when amounts is omitted",
-    kind="range", default=None)
+    kind="gas", default=None)
 COMPONENTS = Arg(
     "components",
     "Range of gas component names (formula or name, e.g. CH4, methane), or a two-column range of "
     "names and amounts when amounts is omitted",
-    kind="range")
+    kind="gas")
 AMOUNTS = Arg(
     "amounts",
     "Amounts in the same shape as components, mol% (sum near 100) or mole fractions (sum near 1); "
     "omit for a two-column components range",
-    kind="range", default=None)
+    kind="amounts", default=None)
 
 _KIND_ALIASES = {"hhv": "gross", "superior": "gross", "higher": "gross",
                  "lhv": "net", "inferior": "net", "lower": "net"}
 _KIND = Arg("kind", "Calorific value of the fuel energy: net (LHV) or gross (HHV), at 25 °C "
-            "combustion reference", kind="option", default="net", options=("gross", "net"),
+            "combustion reference; engine-side functions default to net, as engine datasheets", kind="option", default="net", options=("gross", "net"),
             aliases=_KIND_ALIASES)
 _UNITS = ("ppm", "mg/nm3", "mg/mj", "g/kwh")
 _UNIT_ALIASES = {"mg/nm³": "mg/nm3", "mg/m3n": "mg/nm3", "ppmv": "ppm", "ppmvd": "ppm",
@@ -46,12 +46,12 @@ _NOTE = " Emission guarantees come from the engine's declared data; permits foll
 ENTRIES = [
     CellFunction(
         name="EMIS_CONVERT",
-        target="cellfuncs.emissions.conversions:cell_emis_convert",
+        target="cellfuncs.emissions.conversions:emis_convert_cells",
         category=CATEGORY,
         description="Converts an emission value between ppm, mg/Nm3 (dry, 0 °C, 1.01325 bar, 22.414 "
                     "L/mol, at the reference O2), mg/MJ of fuel and g/kWh of electricity by the "
                     "F-factor method." + _NOTE,
-        args=(Arg("value", "Emission value in unit_given, >= 0", "-"),
+        args=(Arg("value", "Emission value in unit_given, >= 0", ""),
               _unit("unit_given", "Unit of value"),
               _unit("unit_wanted", "Unit wanted"),
               Arg("species", "NOx as NO2, CO, HCHO (formaldehyde), SO2, NH3, THC as CH4; matters "
@@ -70,7 +70,7 @@ ENTRIES = [
     ),
     CellFunction(
         name="EXH_DRY_VOLUME",
-        target="cellfuncs.emissions.conversions:cell_dry_volume",
+        target="cellfuncs.emissions.conversions:dry_volume",
         category=CATEGORY,
         description="Dry exhaust volume per kWh of fuel (F-factor): stoichiometric dry flue gas of "
                     "complete combustion times 20.9/(20.9 - O2_ref), m³ at 0 °C and 1.01325 bar "
@@ -84,7 +84,7 @@ ENTRIES = [
     ),
     CellFunction(
         name="EXH_ACID_DEWPOINT",
-        target="cellfuncs.emissions.acid_dewpoint:cell_acid_dewpoint",
+        target="cellfuncs.emissions.acid_dewpoint:acid_dewpoint",
         category=CATEGORY,
         description="Sulphuric-acid dew point of a gas engine's exhaust by Verhoff & Banchero (1974) "
                     "from the partial pressures of H2O and SO3 (mmHg in the paper's form); error for "
@@ -94,10 +94,10 @@ ENTRIES = [
               COMPONENTS, AMOUNTS,
               Arg("p_exhaust_bar", "Exhaust pressure at the surface in question, 0.5 to 2",
                   "bar(a)", default=1.01325),
-              Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the "
+              Arg("t_ambient", "Combustion-air temperature (ISO 3046-1 standard reference conditions by default: 25 °C, 30 % RH, 100 kPa; its humidity adds water to the "
                   "exhaust)", "°C", default=25.0),
-              Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1", "-", default=0.3),
-              Arg("p_ambient_bar", "Ambient pressure", "bar(a)", default=1.0),
+              Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1; default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa", "-", default=0.3),
+              Arg("p_ambient_bar", "Ambient pressure; default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa", "bar(a)", default=1.0),
               Arg("so3_share", "Molar share of the fuel's sulphur leaving as SO3 (common practice "
                   "0.01 to 0.05)", "-", default=0.02)),
         returns="acid dew point [°C]",

@@ -11,7 +11,7 @@ AMOUNTS = [[92.0], [4.5], [1.0], [1.5], [1.0]]
 U_AMOUNTS = [[0.05], [0.02], [0.01], [0.02], [0.01]]
 
 EXAMPLES = {
-    "GAS_COMPONENTS": (),
+    "GAS_COMPONENTS": (3.0,),
     "GAS_MOLAR_MASS": (NAMES, AMOUNTS),
     "GAS_Z": (NAMES, AMOUNTS, 15.0, 1.01325),
     "GAS_CV": (NAMES, AMOUNTS, "net", "volume", "15/15"),

@@ -5,7 +5,7 @@ from cellfuncs.catalogue.spec import Arg, CellFunction
 CATEGORY = "cellfuncs · gas"
 
 # the same composition arguments as every GAS_ function
-from cellfuncs.catalogue.gas import _COMPONENTS, _FRACTIONS  # noqa: E402
+from cellfuncs.catalogue.gas import _AMOUNTS, _COMPONENTS  # noqa: E402
 
 _METHOD = Arg(
     "method",
@@ -25,23 +25,23 @@ _NOTE = " Estimate for tendering; the engine's MN limit is on its datasheet."
 ENTRIES = [
     CellFunction(
         name="GAS_METHANE_NUMBER",
-        target="cellfuncs.gas.methane_number:cell_methane_number",
+        target="cellfuncs.gas.methane_number:methane_number",
         category=CATEGORY,
         description="Methane number (knock resistance) of a gas by EN 16726:2015 Annex A "
                     "(partial mixtures) or the Kubesh, King & Liss (1992) linear or H/C "
                     "correlations; error outside a method's limits." + _NOTE,
-        args=(_COMPONENTS, _FRACTIONS, _METHOD),
+        args=(_COMPONENTS, _AMOUNTS, _METHOD),
         returns="methane number [-]",
         example=_EXAMPLE,
     ),
     CellFunction(
         name="GAS_METHANE_NUMBER_BASIS",
-        target="cellfuncs.gas.methane_number:cell_methane_number_basis",
+        target="cellfuncs.gas.methane_number:basis_text",
         category=CATEGORY,
         description="One line of text on what GAS_METHANE_NUMBER leans on: EN 16726 Annex A "
                     "diagrams and their shares, inert correction, and cautions (doubtful "
                     "diagram D06, sign of term a22, figures unverified against Table A.10).",
-        args=(_COMPONENTS, _FRACTIONS, _METHOD),
+        args=(_COMPONENTS, _AMOUNTS, _METHOD),
         returns="text [-]",
         example=_EXAMPLE,
     ),
@@ -49,11 +49,10 @@ ENTRIES = [
 
 
 # ---- the spread between methods (cellfuncs.gas.mn_correlations) ----
-from cellfuncs.catalogue.emissions import AMOUNTS as _AMOUNTS  # noqa: E402
 
 ENTRIES.append(CellFunction(
     name="GAS_METHANE_NUMBER_SPREAD",
-    target="cellfuncs.gas.mn_correlations:cell_methane_number_spread",
+    target="cellfuncs.gas.mn_correlations:spread",
     category=CATEGORY,
     description="Highest minus lowest methane number over the methods valid for the gas (EN 16726 "
                 "Annex A; Kubesh, King & Liss 1992 linear and H/C MON, each with the paper's and "

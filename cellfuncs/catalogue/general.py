@@ -13,11 +13,12 @@ ENTRIES: list = [
             "Converts a value between units (pint): temperatures with offsets, kWh, MJ, MMBtu, "
             "therm, kcal, hp, bar, mbar, psi, inH2O; bar(g) and psig are gauge against 1.01325 bar."),
         args=(
-            Arg("value", "The value to convert, in from_unit"),
-            Arg("from_unit", "Unit of value, e.g. \"°C\", \"kWh\", \"bar(g)\"", kind="text"),
-            Arg("to_unit", "Unit wanted, e.g. \"°F\", \"MJ\", \"psi\"", kind="text"),
+            Arg("value", "The value to convert, in unit_given"),
+            Arg("unit_given", "Unit the value is given in, e.g. \"°C\", \"kWh\", \"bar(g)\"",
+                kind="text"),
+            Arg("unit_wanted", "Unit wanted, e.g. \"°F\", \"MJ\", \"psi\"", kind="text"),
         ),
-        returns="the value in to_unit [to_unit]",
+        returns="the value in unit_wanted [unit_wanted]",
     ),
     CellFunction(
         name="CELLFUNCS_VERSION",

@@ -9,7 +9,8 @@ CATEGORY = "cellfuncs · heat transfer"
 _PKG = "cellfuncs.heat_transfer"
 
 _FLOW_ALIASES = {k: v for k, v in ALIASES.items() if v in FLOWS}
-_ARR_HELP = "Flow arrangement (n-m: n shell and m tube passes; cross: both fluids unmixed)"
+_ARR_HELP = ("Flow arrangement (n-m: n shell, m tube passes; cross: both unmixed; counterflow, "
+             "crossflow accepted)")
 
 
 def _t(name, what):
@@ -24,9 +25,13 @@ _STREAMS = (
 )
 
 
-def _arrangement(default):
-    return Arg("arrangement", _ARR_HELP, kind="option", default=default,
+def _arrangement(default, why=""):
+    return Arg("arrangement", _ARR_HELP + why, kind="option", default=default,
                options=ARRANGEMENTS, aliases=ALIASES)
+
+
+#: HX_F's default stays "1-2": F is relative to counterflow, so "counter" would always give 1
+_F_DEFAULT_WHY = "; counter gives F = 1"
 
 
 _CAUTION = " Estimate for tendering; final design per local codes and licensed engineers."
@@ -40,8 +45,9 @@ ENTRIES = [
                      "heat exchanger from its four stream temperatures; a temperature "
                      "cross is an error."),
         args=_STREAMS + (
-            Arg("flow", "Flow direction of the two streams", kind="option",
-                default="counter", options=FLOWS, aliases=_FLOW_ALIASES),
+            Arg("arrangement", "Flow arrangement of the two streams, counter or parallel (aliases "
+                "such as counterflow accepted; shell-and-tube and crossflow: HX_F)",
+                kind="option", default="counter", options=FLOWS, aliases=_FLOW_ALIASES),
         ),
         returns="log-mean temperature difference [K]",
     ),
@@ -52,7 +58,7 @@ ENTRIES = [
         description=("LMTD correction factor F relative to counterflow for shell-and-tube "
                      "(1-2 to 4-8) and crossflow arrangements; error when the "
                      "arrangement cannot reach the temperatures."),
-        args=_STREAMS + (_arrangement("1-2"),),
+        args=_STREAMS + (_arrangement("1-2", _F_DEFAULT_WHY),),
         returns="LMTD correction factor F [-]",
     ),
     CellFunction(
@@ -73,7 +79,7 @@ ENTRIES = [
                      "temperatures at overall coefficient U: duty/(U·F·LMTD)." + _CAUTION),
         args=(
             Arg("duty_kw", "Heat duty transferred", "kW"),
-            Arg("u_w_m2k", "Overall heat-transfer coefficient referred to the area sought",
+            Arg("u_w_m2_k", "Overall heat-transfer coefficient referred to the area sought",
                 "W/(m²·K)"),
         ) + _STREAMS + (_arrangement("counter"),),
         returns="required area [m²]",
@@ -122,7 +128,7 @@ ENTRIES = [
             Arg("c_cold_kw_k", "Cold stream capacity rate, mass flow times cp", "kW/K"),
             Arg("ua_kw_k", "UA of the exchanger", "kW/K"),
             _arrangement("counter"),
-            Arg("output", "Result wanted; all = 1x3 row duty [kW], t_hot_out [°C], "
+            Arg("result", "Result wanted; all = 1x3 row duty [kW], t_hot_out [°C], "
                 "t_cold_out [°C]", kind="option", default="duty",
                 options=RATE_OUTPUTS),
         ),

@@ -13,21 +13,23 @@ _P_BOOST = Arg("p_boost_bar", "Boost (receiver) pressure at the site, 0.5 to 10"
 _EPS = Arg("compression_ratio", "Compression ratio, 4 to 25; use the effective one for early "
            "or late inlet-valve closing", unit="-")
 _MN = Arg("methane_number", "Methane number of the site's gas, 0 to 150", unit="-")
-_T_REF = Arg("t_ref", "Mixture temperature of the declared knock-free reference point "
+_T_REF = Arg("t_mixture_ref", "Mixture temperature of the declared knock-free reference point "
              "(engine datasheet)", unit="°C")
-_P_REF = Arg("p_ref_bar", "Boost pressure of the declared reference point (engine datasheet)",
+_P_REF = Arg("p_boost_ref_bar", "Boost pressure of the declared reference point (engine datasheet)",
              unit="bar(a)")
-_MN_REF = Arg("mn_ref", "Methane number of the declared reference point (engine datasheet)",
+_MN_REF = Arg("methane_number_ref", "Methane number of the declared reference point (engine datasheet)",
               unit="-")
 _EPS_REF = Arg("compression_ratio_ref", "Compression ratio at the reference point; blank: "
                "the same as compression_ratio", unit="-", default=None)
 _K = Arg("k_per_mn", "Allowed mixture temperature per methane-number point, an estimate "
          "(about ±30 %); override with the engine's derating data", unit="K", default=0.8)
-_N = Arg("n_poly", "Polytropic exponent of compression, 1.0 to 1.6 (common practice)",
+_N = Arg("polytropic_exponent", "Polytropic exponent of compression, 1.0 to 1.6 (common practice)",
          unit="-", default=1.35)
-_B = Arg("activation_k", "Ignition-delay activation temperature B, from a GRI-Mech 3.0 fit "
-         "for lean methane-air", unit="K", default=19600.0)
-_A = Arg("pressure_exp", "Ignition-delay pressure exponent a, from the same fit", unit="-",
+_B = Arg("activation_temperature", "Ignition-delay activation temperature B (activation energy "
+         "over the gas constant), from a GRI-Mech 3.0 fit for lean methane-air", unit="K",
+         default=19600.0)
+_A = Arg("delay_pressure_exponent", "Pressure exponent a of the ignition delay, from the same "
+         "fit", unit="-",
          default=0.85)
 
 ENTRIES = [
@@ -39,7 +41,7 @@ ENTRIES = [
                     "calibrated limit, negative beyond it; not for load or timing."
                     + _CAUTION,
         args=(_T_MIX, _P_BOOST, _EPS, _MN, _T_REF, _P_REF, _MN_REF, _EPS_REF,
-              Arg("output", "Unit of the margin: k (kelvin of mixture temperature) or mn "
+              Arg("unit", "Unit of the margin: k (kelvin of mixture temperature) or mn "
                   "(methane-number points)", kind="option", default="k",
                   options=("k", "mn"), aliases={"kelvin": "k", "methanenumber": "mn"}),
               _K, _N, _B, _A),

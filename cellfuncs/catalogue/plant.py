@@ -27,10 +27,10 @@ def _glycol_pair(what):
 
 
 def _ambient():
-    return (Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the exhaust)",
+    return (Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the exhaust); default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa",
                 "°C", default=25.0),
-            Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1", "-", default=0.3),
-            Arg("p_ambient_bar", "Ambient pressure", "bar(a)", default=1.0))
+            Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1; default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa", "-", default=0.3),
+            Arg("p_ambient_bar", "Ambient pressure; default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa", "bar(a)", default=1.0))
 
 
 ENTRIES = [
@@ -86,14 +86,14 @@ ENTRIES = [
         args=(Arg("duty_kw", "Heat the air takes up", "kW"),
               Arg("t_air_in", "Air entering the cooler: the site's design ambient", "°C"),
               Arg("t_air_out", "Air leaving the cooler", "°C"),
-              Arg("rh_ambient", "Relative humidity of the ambient air, 0 to 1", "-", default=0.3),
-              Arg("p_ambient_bar", "Ambient pressure", "bar(a)", default=1.0)),
+              Arg("rh_ambient", "Relative humidity of the ambient air, 0 to 1; default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa", "-", default=0.3),
+              Arg("p_ambient_bar", "Ambient pressure; default: ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa", "bar(a)", default=1.0)),
         returns="air volume flow at the air inlet [m³/h]",
         example=(103.0, 30.0, 38.0, 0.4, 0.99),
     ),
     CellFunction(
         name="EXH_LOSS",
-        target=_REC + "exhaust_loss:cell_exh_loss",
+        target=_REC + "exhaust_loss:exhaust_loss",
         category=CAT_HR,
         description="Exhaust loss on a net-calorific-value balance: sensible heat the wet exhaust still "
                     "carries above t_reference (25 °C), water kept as vapour. EXH_LOSS(t1) - "
@@ -104,10 +104,10 @@ ENTRIES = [
               Arg("air_ratio", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, "
                   + _DATASHEET, "-"),
               Arg("components", "Range of fuel-gas component names, or a two-column range of names "
-                  "and amounts when amounts is omitted", kind="range"),
+                  "and amounts when amounts is omitted", kind="gas"),
               Arg("amounts", "Amounts in the same shape as components, in mol% (sum near 100) or "
                   "mole fractions (sum near 1); omit for a two-column components range",
-                  kind="range", default=None),
+                  kind="amounts", default=None),
               Arg("t_reference", "Reference temperature of the balance (combustion reference of the "
                   "net calorific value)", "°C", default=25.0),
               *_ambient()),

@@ -7,6 +7,8 @@ declared datasheet; final design follows local codes and licensed engineers.
 
 from cellfuncs.catalogue.gas import KIND_ALIASES
 from cellfuncs.catalogue.spec import REQUIRED, Arg, CellFunction
+from cellfuncs.heat_transfer.arrangements import ALIASES as _HX_ALIASES
+from cellfuncs.heat_transfer.arrangements import ARRANGEMENTS as _HX_WORDS
 
 CAT_HR = "cellfuncs · heat recovery"
 CAT_ENG = "cellfuncs · engine"
@@ -25,12 +27,13 @@ _ENG = "cellfuncs.engine."
 GLYCOL_WORDS = ("ethylene", "propylene")
 GLYCOL_ALIASES = {"eg": "ethylene", "meg": "ethylene", "ethyleneglycol": "ethylene",
                   "pg": "propylene", "mpg": "propylene", "propyleneglycol": "propylene"}
-ARRANGEMENT_WORDS = ("counter", "parallel", "1-2", "2-4", "3-6", "4-8", "cross",
-                     "cross-cmin-mixed", "cross-cmax-mixed")
-ARRANGEMENT_ALIASES = {"counterflow": "counter", "parallelflow": "parallel"}
+#: the one list of arrangement words and aliases (cellfuncs.heat_transfer.arrangements)
+ARRANGEMENT_WORDS = _HX_WORDS
+ARRANGEMENT_ALIASES = dict(_HX_ALIASES)
 
-_PROPS = ("Water: IAPWS-IF97 at 3 bar(a) (liquid 0 to 133.52 °C); water-glycol: CoolProp "
-          "INCOMP::MEG/MPG (Melinder 2010), mass fraction 0-0.6, freezing point to 100 °C")
+_PROPS = ("Water: IAPWS-IF97 at 3 bar(a) (liquid 0 to 133.52 °C); water-glycol: Melinder (2010) "
+          "property fits for ethylene or propylene glycol, mass fraction 0-0.6, freezing point "
+          "to 100 °C")
 
 
 def _glycol_fraction():
@@ -60,7 +63,8 @@ HOT_WATER = [
         target=_REC + "water:hw_cp",
         category=CAT_HR,
         description="Specific heat capacity of hot water or water-glycol at 3 bar(a). " + _PROPS + ".",
-        args=(_t("t", "Fluid temperature"), _glycol_fraction(), _glycol()),
+        args=(_t("t_water", "Temperature of the circuit fluid (water or water-glycol)"),
+              _glycol_fraction(), _glycol()),
         returns="specific heat capacity cp [kJ/(kg·K)]",
     ),
     CellFunction(
@@ -68,29 +72,33 @@ HOT_WATER = [
         target=_REC + "water:hw_density",
         category=CAT_HR,
         description="Density of hot water or water-glycol at 3 bar(a). " + _PROPS + ".",
-        args=(_t("t", "Fluid temperature"), _glycol_fraction(), _glycol()),
+        args=(_t("t_water", "Temperature of the circuit fluid (water or water-glycol)"),
+              _glycol_fraction(), _glycol()),
         returns="density [kg/m³]",
     ),
     CellFunction(
         name="HW_FLOW",
         target=_REC + "water:hw_flow",
         category=CAT_HR,
-        description="Hot-water volume flow (measured at t_in) that carries duty_kw between t_in "
-                    "and t_out, from the enthalpy rise at 3 bar(a). An estimate for tendering.",
+        description="Hot-water volume flow (measured at t_water_in) that carries duty_kw between "
+                    "t_water_in and t_water_out, from the enthalpy rise at 3 bar(a). An estimate "
+                    "for tendering.",
         args=(Arg("duty_kw", "Heat added to the water (negative if it is cooled)", "kW"),
-              _t("t_in", "Water inlet temperature; the flow is measured here"),
-              _t("t_out", "Water outlet temperature"),
+              _t("t_water_in", "Water inlet temperature; the flow is measured here"),
+              _t("t_water_out", "Water outlet temperature"),
               _glycol_fraction(), _glycol()),
-        returns="volume flow at t_in [m³/h]",
+        returns="volume flow at t_water_in [m³/h]",
     ),
     CellFunction(
         name="HW_DUTY",
         target=_REC + "water:hw_duty",
         category=CAT_HR,
-        description="Duty of a hot-water flow (volume measured at t_in) heated from t_in to t_out, "
-                    "from the enthalpy rise at 3 bar(a). An estimate for tendering.",
-        args=(_flow(), _t("t_in", "Water inlet temperature; the flow is measured here"),
-              _t("t_out", "Water outlet temperature"), _glycol_fraction(), _glycol()),
+        description="Duty of a hot-water flow (volume measured at t_water_in) heated from "
+                    "t_water_in to t_water_out, from the enthalpy rise at 3 bar(a). An estimate "
+                    "for tendering.",
+        args=(_flow("water_flow_m3_h"),
+              _t("t_water_in", "Water inlet temperature; the flow is measured here"),
+              _t("t_water_out", "Water outlet temperature"), _glycol_fraction(), _glycol()),
         returns="duty [kW], negative when the water is cooled",
     ),
     CellFunction(
@@ -189,8 +197,9 @@ ENGINE = [
         name="GEN_SPEED",
         target=_ENG + "genset:gen_speed",
         category=CAT_ENG,
-        description="Synchronous speed of a generator: 60 times the grid frequency divided by the "
-                    "number of pole pairs (2 pole pairs: 1,500 rpm at 50 Hz, 1,800 rpm at 60 Hz).",
+        description="Synchronous speed of a generator (GEN_ = generator): 60 times the grid "
+                    "frequency divided by the number of pole pairs (2 pole pairs: 1,500 rpm at "
+                    "50 Hz, 1,800 rpm at 60 Hz).",
         args=(Arg("frequency_hz", "Grid frequency", "Hz"),
               Arg("pole_pairs", "Number of pole pairs of the generator, a whole number", "-",
                   kind="integer")),
@@ -200,8 +209,9 @@ ENGINE = [
         name="GEN_POLE_PAIRS",
         target=_ENG + "genset:gen_pole_pairs",
         category=CAT_ENG,
-        description="Pole pairs of a synchronous generator from grid frequency and speed; an error "
-                    "when the speed is more than 0.5 % away from a synchronous speed.",
+        description="Pole pairs of a synchronous generator (GEN_ = generator) from grid frequency "
+                    "and speed; an error when the speed is more than 0.5 % away from a synchronous "
+                    "speed.",
         args=(Arg("frequency_hz", "Grid frequency", "Hz"),
               Arg("speed_rpm", "Generator shaft speed " + _DATASHEET, "rpm")),
         returns="pole pairs [-]",
@@ -295,24 +305,23 @@ PLANT = [
 _COMPONENTS = Arg(
     "components",
     "Range of fuel-gas component names (formula or common name, as in the GAS_ functions), or a "
-    "two-column range of names and amounts when fractions is omitted", kind="range")
-_FRACTIONS = Arg(
-    "fractions",
+    "two-column range of names and amounts with amounts left empty", kind="gas")
+_AMOUNTS = Arg(
+    "amounts",
     "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near "
-    "1); omit for a two-column components range", kind="range", default=None)
-_FRACTIONS_REQ = Arg(
-    "fractions",
-    "Amounts in the same shape as components, in mol% (sum near 100) or mole fractions (sum near 1)",
-    kind="range")
-_LAMBDA = Arg("lambda_", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, from the "
-              "engine's declared datasheet", "-")
+    "1); leave empty for a two-column components range", kind="amounts", default=None)
+_AMOUNTS_REQ = Arg(_AMOUNTS.name, _AMOUNTS.help, kind="amounts")  # a required argument follows
+_AIR_RATIO = Arg("air_ratio", "Air ratio λ (excess air ratio) of the engine, 1 to 20 (complete "
+                 "combustion needs at least 1), from the engine's declared datasheet", "-")
+_ISO = "ISO 3046-1 standard reference conditions: 25 °C, 30 % RH, 100 kPa"
 
 
 def _ambient():
-    return (Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the exhaust)",
-                "°C", default=25.0),
-            Arg("rh_ambient", "Relative humidity of the combustion air, 0 to 1", "-", default=0.3),
-            Arg("p_ambient_bar", "Ambient pressure", "bar(a)", default=1.0))
+    return (Arg("t_ambient", "Combustion-air temperature (its humidity adds water to the exhaust), "
+                f"-50 to 60 ({_ISO})", "°C", default=25.0),
+            Arg("rh_ambient", f"Relative humidity of the combustion air, 0 to 1 ({_ISO})", "-",
+                default=0.3),
+            Arg("p_ambient_bar", f"Ambient pressure, 0.5 to 1.2 ({_ISO})", "bar(a)", default=1.0))
 
 
 _EXH_NOTE = " An estimate for tendering."
@@ -320,61 +329,63 @@ _EXH_NOTE = " An estimate for tendering."
 EXHAUST = [
     CellFunction(
         name="EXH_FLOW",
-        target=_REC + "exhaust:cell_exh_flow",
+        target=_REC + "exhaust:exhaust_flow",
         category=CAT_HR,
-        description="Wet exhaust mass flow of a gas engine: fuel + lambda times the stoichiometric "
-                    "dry air + the air's water vapour, complete combustion." + _EXH_NOTE,
+        description="Wet exhaust mass flow of a gas engine: fuel + air ratio times the "
+                    "stoichiometric dry air + the air's water vapour, complete combustion."
+                    + _EXH_NOTE,
         args=(Arg("fuel_power_kw", "Fuel power input " + _DATASHEET + ", on the kind of calorific "
                   "value given (at 25 °C combustion reference)", "kW"),
-              _LAMBDA, _COMPONENTS, _FRACTIONS,
+              _AIR_RATIO, _COMPONENTS, _AMOUNTS,
               Arg("kind", "Calorific value the fuel power refers to, net (LHV, inferior) or "
-                  "gross (HHV, superior)", kind="option", default="net", options=("gross", "net"),
+                  "gross (HHV, superior), at 25 °C combustion; engine-side functions default to "
+                  "net, as engine datasheets are", kind="option", default="net", options=("gross", "net"),
                   aliases=KIND_ALIASES),
               *_ambient()),
         returns="wet exhaust mass flow [kg/h]",
     ),
     CellFunction(
         name="EXH_COMPOSITION",
-        target=_REC + "exhaust:cell_exh_composition",
+        target=_REC + "exhaust:exhaust_composition",
         category=CAT_HR,
         description="Mole fraction of CO2, H2O, O2, N2, Ar or SO2 in a gas engine's exhaust (complete "
-                    "combustion, H2S to SO2, excess O2, the humid air's water and argon), wet or dry "
-                    "basis.",
-        args=(_LAMBDA, _COMPONENTS, _FRACTIONS_REQ,
+                    "combustion, H2S to SO2, excess O2, the humid air's water and argon), wet or "
+                    "dry; a fraction 0-1 (times 100 for vol-%, as EXH_O2_CORRECT wants).",
+        args=(_AIR_RATIO, _COMPONENTS, _AMOUNTS_REQ,
               Arg("species", "Exhaust species", kind="option", default=REQUIRED,
                   options=("co2", "h2o", "o2", "n2", "ar", "so2"),
                   aliases={"carbondioxide": "co2", "water": "h2o", "oxygen": "o2",
                            "nitrogen": "n2", "argon": "ar", "sulfurdioxide": "so2"}),
-              Arg("basis", "Wet exhaust, or dry (water removed; h2o is then 0)", kind="option",
+              Arg("moisture", "Wet exhaust, or dry (water removed; h2o is then 0)", kind="option",
                   default="wet", options=("wet", "dry")),
               *_ambient()),
         returns="mole (volume) fraction [-]",
     ),
     CellFunction(
         name="EXH_HEAT",
-        target=_REC + "exhaust:cell_exh_heat",
+        target=_REC + "exhaust:exhaust_heat",
         category=CAT_HR,
-        description="Sensible heat a gas engine's exhaust gives up between t_in and t_out (ideal-gas "
-                    "mixture, GRI-Mech 3.0 NASA-7 data); t_out below the water dew point is an error. "
-                    "About 120 °C is the usual stack limit.",
+        description="Sensible heat a gas engine's exhaust gives up between t_exhaust_in and "
+                    "t_exhaust_out (ideal-gas mixture, GRI-Mech 3.0 NASA-7 data); an outlet below "
+                    "the water dew point is an error. About 120 °C is the usual stack limit.",
         args=(Arg("exhaust_flow_kg_h", "Wet exhaust mass flow " + _DATASHEET + " or from EXH_FLOW",
                   "kg/h"),
-              _t("t_in", "Exhaust temperature entering the exchanger"),
-              _t("t_out", "Exhaust (stack) temperature leaving the exchanger; about 120 °C is the "
+              _t("t_exhaust_in", "Exhaust temperature entering the exchanger"),
+              _t("t_exhaust_out", "Exhaust (stack) temperature leaving the exchanger; about 120 °C is the "
                  "usual design limit for natural gas to stay clear of water and acid condensation "
                  "(common practice), and below the water dew point (at 1.01325 bar(a)) is an error"),
-              _LAMBDA, _COMPONENTS, _FRACTIONS, *_ambient()),
+              _AIR_RATIO, _COMPONENTS, _AMOUNTS, *_ambient()),
         returns="heat given up by the exhaust [kW], sensible only",
     ),
     CellFunction(
         name="EXH_DEWPOINT",
-        target=_REC + "exhaust:cell_exh_dewpoint",
+        target=_REC + "exhaust:exhaust_dewpoint",
         category=CAT_HR,
         description="Water dew point of a gas engine's exhaust at a pressure: saturation temperature "
                     "of water (IAPWS-IF97) at its partial pressure. The acid dew point of sulfur-"
                     "bearing gas is higher and not computed.",
-        args=(_LAMBDA, _COMPONENTS, _FRACTIONS,
-              Arg("p_bar", "Exhaust pressure", "bar(a)", default=1.01325), *_ambient()),
+        args=(_AIR_RATIO, _COMPONENTS, _AMOUNTS,
+              Arg("p_exhaust_bar", "Exhaust pressure", "bar(a)", default=1.01325), *_ambient()),
         returns="water dew point [°C]",
     ),
     CellFunction(
@@ -383,11 +394,14 @@ EXHAUST = [
         category=CAT_HR,
         description="An emission concentration referred to a reference O2 content: c·(20.9 − "
                     "O2_ref)/(20.9 − O2_meas), O2 in vol-% dry (common practice in emission permits; "
-                    "some use 21: check the permit).",
+                    "some use 21: check the permit). From EXH_COMPOSITION(...,\"o2\",\"dry\"): "
+                    "times 100.",
         args=(Arg("concentration", "Measured concentration on a dry basis, any unit (e.g. mg/m³)",
                   "-"),
-              Arg("o2_measured", "O2 measured, vol-% dry, below 20.9", "vol-%"),
-              Arg("o2_reference", "Reference O2 of the limit value, vol-% dry (e.g. 5 or 15)",
+              Arg("o2_measured_pct", "O2 measured, vol-% dry, below 20.9 (EXH_COMPOSITION gives a "
+                  "fraction: =100*EXH_COMPOSITION(air_ratio,components,amounts,\"o2\",\"dry\"))",
+                  "vol-%"),
+              Arg("o2_reference_pct", "Reference O2 of the limit value, vol-% dry (e.g. 5 or 15)",
                   "vol-%")),
         returns="concentration at the reference O2 [unit of concentration]",
     ),

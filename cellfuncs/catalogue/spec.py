@@ -17,6 +17,24 @@ Argument kinds
 ``text``     free text (a unit name, a reference condition ``"15/15"``).
 ``range``    a block of cells: the core receives a tuple of rows, each a tuple
              of cells; a cell is a float, a str or ``None`` (blank).
+``reference`` a number or a text: reference conditions ``"t1/t2"`` or, as a
+             number, the metering temperature alone (GAS_Z, GAS_DENSITY,
+             GAS_REL_DENSITY); the core receives a float or the stripped text.
+
+A gas analysis (the glossary's ``components`` + ``amounts``) is parsed once,
+at the cell boundary (:mod:`cellfuncs.adapt`), never by the physics:
+
+``gas``      the component names: a range of names, or a two-column range of
+             names and amounts when the following ``amounts`` is left empty.
+             The core receives one parsed
+             :class:`~cellfuncs.gas.composition.Composition` in this position
+             (``None`` when the argument is optional and blank).
+``amounts``  the amounts belonging to the ``gas`` argument just before it
+             (mol% or mole fractions).  Consumed by the parse: this position
+             is NOT passed to the core, so the core has one argument fewer.
+``amount_uncertainties``  standard uncertainties of the amounts, same shape
+             and unit; the core receives ``{component id: uncertainty as a
+             mole fraction}`` (scaled by the same normalisation as the amounts).
 """
 
 from __future__ import annotations
@@ -25,7 +43,7 @@ import importlib
 from dataclasses import dataclass, field
 from typing import Any, Callable
 
-__all__ = ["REQUIRED", "Arg", "CellFunction", "KINDS"]
+__all__ = ["REQUIRED", "Arg", "CellFunction", "KINDS", "RANGE_KINDS"]
 
 
 class _Required:
@@ -34,7 +52,11 @@ class _Required:
 
 
 REQUIRED: Any = _Required()
-KINDS = ("number", "integer", "option", "text", "range")
+KINDS = ("number", "integer", "option", "text", "range", "reference", "gas", "amounts",
+         "amount_uncertainties")
+
+#: kinds that take a block of cells (xlwings hands them over as 2-D lists)
+RANGE_KINDS = frozenset(("range", "gas", "amounts", "amount_uncertainties"))
 
 
 @dataclass(frozen=True)
@@ -97,7 +119,9 @@ class CellFunction:
         Excel name, DOMAIN_QUANTITY in capitals (``HX_LMTD``).
     target : str
         Dotted path of the core callable, ``"cellfuncs.heat_transfer.lmtd:lmtd"``.
-        It is called positionally with the coerced arguments in catalogue order.
+        It is called positionally with the coerced arguments in catalogue order
+        (an ``amounts`` argument is folded into the ``gas`` argument before it,
+        so the core has one parameter fewer per gas analysis).
     category : str
         Function-wizard category, ``"cellfuncs · heat transfer"``.
     description : str

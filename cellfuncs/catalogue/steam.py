@@ -15,7 +15,7 @@ STEAM_RESULTS = ("steam", "duty", "t_stack", "all")
 ENTRIES = [
     CellFunction(
         name="EXH_STEAM",
-        target="cellfuncs.recovery.steam:cell_exh_steam",
+        target="cellfuncs.recovery.steam:exhaust_steam",
         category=CAT_HR,
         description=("Saturated steam from a gas engine's exhaust: evaporator pinch, economiser to "
                      "saturation less an approach; no blowdown, no heat loss. Water and steam "
@@ -26,12 +26,13 @@ ENTRIES = [
             Arg("t_exhaust_in", "Exhaust temperature entering the evaporator", "°C"),
             Arg("air_ratio", "Air ratio (excess air ratio) lambda of the engine, 1 to 20, from the "
                 "engine's declared datasheet", "-"),
-            # amounts is required here: required arguments follow it, which the catalogue's
-            # generated signatures do not allow after an optional one (as EXH_COMPOSITION)
+            # amounts has no default in the signature (required arguments follow it, as in
+            # EXH_COMPOSITION); it may still be left empty for a two-column components range
             Arg("components", "Range of fuel-gas component names (formula or common name, as in "
-                "the GAS_ functions)", kind="range"),
+                "the GAS_ functions), or a two-column range of names and amounts", kind="gas"),
             Arg("amounts", "Amounts in the same shape as components, in mol% (sum near 100) or "
-                "mole fractions (sum near 1)", kind="range"),
+                "mole fractions (sum near 1); leave empty for a two-column components range",
+                kind="amounts"),
             Arg("p_steam_bar", "Drum (steam) pressure, absolute, 1 to 160", "bar(a)"),
             Arg("t_feedwater", "Feedwater temperature entering the economiser, at most the "
                 "saturation temperature less approach_k", "°C"),

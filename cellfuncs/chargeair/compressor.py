@@ -38,12 +38,12 @@ from __future__ import annotations
 import math
 
 from cellfuncs.chargeair import humid
-from cellfuncs.chargeair.mixture import (ISO_RH_AMBIENT, ISO_T_AMBIENT, _composition,
+from cellfuncs.chargeair.mixture import (ISO_RH_AMBIENT, ISO_T_AMBIENT,
                                          charge_mixture)
 from cellfuncs.errors import CellInputError, check_range, fmt
 from cellfuncs.gas import idealgas
 
-__all__ = ["t_out", "cell_turbo_t_out"]
+__all__ = ["t_out"]
 
 T_OUT_MAX = 1000.0  # °C
 
@@ -135,10 +135,3 @@ def t_out(t_in, p_in_bar, p_out_bar, eta_is, lambda_=None, comp=None,
                              "at this pressure ratio")
     T2 = poly.t_from_h(h2, guess=T1 + (T2s - T1) / eta)
     return T2 - 273.15
-
-
-def cell_turbo_t_out(t_in, p_in_bar, p_out_bar, eta_is, lambda_=None, components=None,
-                     fractions=None, t_ambient=ISO_T_AMBIENT, rh_ambient=ISO_RH_AMBIENT) -> float:
-    """TURBO_T_OUT [°C]."""
-    comp = _composition(components, fractions)
-    return t_out(t_in, p_in_bar, p_out_bar, eta_is, lambda_, comp, t_ambient, rh_ambient)

@@ -43,12 +43,11 @@ from __future__ import annotations
 
 from cellfuncs.chargeair import humid
 from cellfuncs.chargeair.mixture import (ISO_P_AMBIENT_BAR, M_WATER, ChargeMixture,
-                                         _composition, charge_mixture)
+                                         charge_mixture)
 from cellfuncs.errors import CellInputError, check_range, fmt
 from cellfuncs.gas import idealgas
 
-__all__ = ["dew_point", "duty", "condensate", "outlet_state",
-           "cell_dewpoint", "cell_duty", "cell_condensate"]
+__all__ = ["dew_point", "duty", "condensate", "outlet_state"]
 
 T_LO, T_HI = -40.0, 400.0  # °C
 P_LO, P_HI = 0.5, 50.0  # bar
@@ -268,26 +267,3 @@ def condensate(mixture_flow_kg_h, t_out, p_bar, lambda_, comp, t_ambient, rh_amb
     _, n_c = outlet_state(mix, t2, p)
     _condensing_ok(t2, n_c)
     return _per_mol_dry_air(m, mix) * n_c * M_WATER * 3.6  # g/s -> kg/h
-
-
-def cell_dewpoint(p_bar, lambda_, components, fractions, t_ambient, rh_ambient,
-                  p_ambient_bar=ISO_P_AMBIENT_BAR) -> float:
-    """CAC_DEWPOINT [°C]."""
-    comp = _composition(components, fractions)
-    return dew_point(p_bar, lambda_, comp, t_ambient, rh_ambient, p_ambient_bar)
-
-
-def cell_duty(mixture_flow_kg_h, t_in, t_out, p_bar, lambda_, components, fractions,
-              t_ambient, rh_ambient, p_ambient_bar=ISO_P_AMBIENT_BAR) -> float:
-    """CAC_DUTY [kW]."""
-    comp = _composition(components, fractions)
-    return duty(mixture_flow_kg_h, t_in, t_out, p_bar, lambda_, comp, t_ambient, rh_ambient,
-                p_ambient_bar)
-
-
-def cell_condensate(mixture_flow_kg_h, t_out, p_bar, lambda_, components, fractions,
-                    t_ambient, rh_ambient, p_ambient_bar=ISO_P_AMBIENT_BAR) -> float:
-    """CAC_CONDENSATE [kg/h]."""
-    comp = _composition(components, fractions)
-    return condensate(mixture_flow_kg_h, t_out, p_bar, lambda_, comp, t_ambient, rh_ambient,
-                      p_ambient_bar)

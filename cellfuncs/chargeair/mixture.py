@@ -49,7 +49,6 @@ __all__ = [
     "check_lambda",
     "charge_mixture",
     "mixture_flow",
-    "cell_mixture_flow",
 ]
 
 #: ISO 3046-1 standard reference conditions (from memory): 25 °C, 30 %, 100 kPa
@@ -130,15 +129,6 @@ def check_ambient(t_ambient, rh_ambient, p_ambient_bar) -> tuple:
     rh = check_range("rh_ambient", rh_ambient, 0.0, 1.0, "")
     p = check_range("p_ambient_bar", p_ambient_bar, 0.5, 1.2, "bar")
     return t, rh, p
-
-
-def _composition(components, fractions):
-    """Parsed fuel composition, or None for air only (no components given)."""
-    if components is None or (isinstance(components, str) and not components.strip()):
-        return None
-    from cellfuncs.gas.composition import parse_composition
-
-    return parse_composition(components, fractions)
 
 
 def charge_mixture(comp, lambda_, t_ambient=ISO_T_AMBIENT, rh_ambient=ISO_RH_AMBIENT,
@@ -289,12 +279,3 @@ def mixture_flow(fuel_power_kw, lambda_, comp, kind="net", t_ambient=ISO_T_AMBIE
     value = {"mixture": mix.mass, "dry_air": mix.mass_dry_air, "water": mix.mass_water,
              "fuel": mix.mass_fuel}[which]
     return value * scale
-
-
-def cell_mixture_flow(fuel_power_kw, lambda_, components, fractions, kind="net",
-                      t_ambient=ISO_T_AMBIENT, rh_ambient=ISO_RH_AMBIENT,
-                      p_ambient_bar=ISO_P_AMBIENT_BAR, part="mixture") -> float:
-    """CAC_MIXTURE_FLOW [kg/h]."""
-    comp = _composition(components, fractions)
-    return mixture_flow(fuel_power_kw, lambda_, comp, kind, t_ambient, rh_ambient,
-                        p_ambient_bar, part)

@@ -290,6 +290,20 @@ def cell_dry_volume(components, amounts=None, o2_reference_pct=0.0, kind="net") 
     return dry_volume(_gas(components, amounts), o2_reference_pct, kind)
 
 
+def emis_convert_cells(value, unit_given, unit_wanted, species="nox", gas=None, o2_reference_pct=5.0,
+                       electrical_efficiency=None, kind="net") -> float:
+    """EMIS_CONVERT as the catalogue calls it: unit words checked here, the gas analysis parsed.
+
+    ``gas`` is the :class:`~cellfuncs.gas.composition.Composition` the shared
+    adapter parsed from ``components``/``amounts`` (None when left empty).
+    """
+    ug = _word(unit_given, "unit_given", UNITS, UNIT_ALIASES)
+    uw = _word(unit_wanted, "unit_wanted", UNITS, UNIT_ALIASES)
+    need_gas = ug != uw and (ug in _NEEDS_GAS or uw in _NEEDS_GAS)
+    return emis_convert(value, ug, uw, species, gas if need_gas else None, o2_reference_pct,
+                        electrical_efficiency, kind)
+
+
 def cell_emis_convert(value, unit_given, unit_wanted, species="nox", components=None, amounts=None,
                       o2_reference_pct=5.0, electrical_efficiency=None, kind="net") -> float:
     """EMIS_CONVERT [unit_wanted]."""

@@ -30,7 +30,7 @@ import math
 from functools import lru_cache
 
 from cellfuncs.errors import CellInputError, CellTypeError, check_range
-from cellfuncs.gas.composition import cell_cached, Composition, parse_composition
+from cellfuncs.gas.composition import Composition, parse_composition
 from cellfuncs.gas import iso6976
 
 __all__ = [
@@ -38,7 +38,6 @@ __all__ = [
     "products", "stoich_air_molar", "stoich_air_mass", "flue_gas_moles",
     "flue_gas_fractions", "species_molar_mass", "fuel_mass_cv", "co2_factor",
     "air_requirement", "fuel_flow", "fuel_power",
-    "cell_air_requirement", "cell_co2_factor", "cell_fuel_flow", "cell_fuel_power",
 ]
 
 #: dry air for combustion, mole fractions [-] (common practice)
@@ -446,28 +445,3 @@ def fuel_power(comp, flow_m3h: float, kind: str = "net", ref="25/0") -> float:
     c = _comp(comp)
     q = check_range("flow_m3h", flow_m3h, 0.0, None, "m³/h")
     return q * _energy_per_m3(c, kind, ref) / 3.6
-
-
-@cell_cached
-def cell_air_requirement(components, fractions=None, basis="volume") -> float:
-    """GAS_AIR_REQUIREMENT [m³/m³ or kg/kg]."""
-    return air_requirement(parse_composition(components, fractions), basis)
-
-
-@cell_cached
-def cell_co2_factor(components, fractions=None, kind="net", t_combustion=25) -> float:
-    """GAS_CO2_FACTOR [kg/MWh]."""
-    return co2_factor(parse_composition(components, fractions), kind, t_combustion)
-
-
-@cell_cached
-def cell_fuel_flow(components, fractions, fuel_power_kw, kind="net", ref="25/0") -> float:
-    """GAS_FUEL_FLOW [m³/h]."""
-    return fuel_flow(parse_composition(components, fractions), fuel_power_kw, kind, ref)
-
-
-@cell_cached
-def cell_fuel_power(components, fractions, flow_m3h, kind="net", ref="25/0") -> float:
-    """GAS_FUEL_POWER [kW]."""
-    return fuel_power(parse_composition(components, fractions), flow_m3h, kind, ref)
-

@@ -46,8 +46,7 @@ __all__ = [
     "Composition",
     "parse_composition",
     "accepted_names",
-    "cell_components",
-    "cell_cached",
+    "component_names",
     "component_id",
     "display_name",
     "paired_amounts",
@@ -135,9 +134,30 @@ def accepted_names(every_spelling: bool = False) -> list:
     return out
 
 
-def cell_components() -> list:
-    """GAS_COMPONENTS: the accepted component names, one column (drop-down list). [-]"""
-    return accepted_names()
+def component_names(index=None):
+    """The accepted component names (GAS_COMPONENTS), or the n-th of them.
+
+    Parameters
+    ----------
+    index : int, optional
+        1-based position in the drop-down list; None returns the whole list.
+
+    Returns
+    -------
+    list of str or str
+        The list of :func:`accepted_names`, or its ``index``-th name. [-]
+
+    Raises
+    ------
+    CellInputError
+        ``index`` outside 1 to the number of names.
+    """
+    names = accepted_names()
+    if index is None:
+        return names
+    if isinstance(index, bool) or not isinstance(index, int) or not 1 <= index <= len(names):
+        raise CellInputError(f"index: {index!r} is not a whole number from 1 to {len(names)}")
+    return names[index - 1]
 
 
 def display_name(cid: str) -> str:
@@ -232,6 +252,11 @@ class Composition:
 def cell_cached(fn):
     """Cache a cell wrapper's results on its (hashable) arguments.
 
+    Kept only for catalogue entries still on the old convention (a ``components``
+    range, an ``amounts`` range and a ``cell_...`` wrapper calling
+    :func:`parse_composition`); entries of kind ``"gas"``/``"amounts"`` need no
+    wrapper, the adapter parses and caches (issue 10).  Remove when none is left.
+
     A sheet calls the same function on the same gas range many times; the
     adapters hand over ranges as tuples, so the whole call is a cache key.
     Errors are not cached.  Unhashable arguments (lists from Python callers)
@@ -250,6 +275,7 @@ def cell_cached(fn):
 
     wrapper.cache_clear = cached.cache_clear
     return wrapper
+
 
 
 # ---------------------------------------------------------------------------

@@ -26,14 +26,13 @@ from functools import lru_cache
 from pathlib import Path
 
 from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
-from cellfuncs.gas.composition import cell_cached, COMPONENT_IDS, Composition, parse_composition
+from cellfuncs.gas.composition import COMPONENT_IDS, Composition, parse_composition
 
 __all__ = [
     "R", "P0_BAR", "M_AIR", "Z_AIR", "T_COMBUSTION", "T_METERING",
     "component_table", "parse_ref", "parse_kind", "parse_basis",
     "molar_mass", "compression_factor", "molar_cv", "mass_cv", "volume_cv",
     "calorific_value", "density", "relative_density", "wobbe_index", "air_compression_factor",
-    "cell_molar_mass", "cell_z", "cell_cv", "cell_wobbe", "cell_density", "cell_rel_density",
 ]
 
 #: molar gas constant, CODATA 2010, as used by ISO 6976:2016 [J/(mol·K)]
@@ -121,6 +120,8 @@ def parse_basis(basis, arg: str = "basis") -> str:
 
 
 def _temperature(value, allowed, arg, what):
+    if allowed is T_METERING and isinstance(value, str) and "/" in value:
+        return parse_ref(value, arg)[1]  # "t1/t2": the metering temperature is t2
     try:
         t = float(value)
     except (TypeError, ValueError):
@@ -227,8 +228,10 @@ def compression_factor(comp, t_metering: float = 15, p_metering_bar: float = P0_
     ----------
     comp : Composition
         Normalised composition.
-    t_metering : float
-        Metering reference temperature, 0, 15 or 20. [°C]
+    t_metering : float or str
+        Metering reference temperature, 0, 15 or 20, or reference conditions
+        ``"t1/t2"`` (combustion/metering, ISO 6976:2016 clause 3) of which t2 is
+        taken. [°C]
     p_metering_bar : float
         Metering reference pressure, 0.90 to 1.10. [bar(a)]
     check_scope : bool
@@ -419,44 +422,3 @@ def wobbe_index(comp, kind: str = "gross", ref="15/15", p_metering_bar: float = 
     t1, t2 = parse_ref(ref)
     hv = volume_cv(c, kind, (t1, t2), p_metering_bar)
     return hv / math.sqrt(relative_density(c, t2, p_metering_bar))
-
-
-# ---------------------------------------------------------------------------
-# cell wrappers (components/fractions arrive as ranges)
-
-
-@cell_cached
-def cell_molar_mass(components, fractions=None) -> float:
-    """GAS_MOLAR_MASS: molar mass [kg/kmol]."""
-    return molar_mass(parse_composition(components, fractions))
-
-
-@cell_cached
-def cell_z(components, fractions=None, t_metering=15, p_metering_bar=P0_BAR) -> float:
-    """GAS_Z: compression factor [-]."""
-    return compression_factor(parse_composition(components, fractions), t_metering, p_metering_bar)
-
-
-@cell_cached
-def cell_cv(components, fractions=None, kind="gross", basis="volume", ref="15/15",
-            p_metering_bar=P0_BAR) -> float:
-    """GAS_CV: calorific value [MJ/m³, MJ/kg or kJ/mol]."""
-    return calorific_value(parse_composition(components, fractions), kind, basis, ref, p_metering_bar)
-
-
-@cell_cached
-def cell_wobbe(components, fractions=None, kind="gross", ref="15/15", p_metering_bar=P0_BAR) -> float:
-    """GAS_WOBBE: Wobbe index [MJ/m³]."""
-    return wobbe_index(parse_composition(components, fractions), kind, ref, p_metering_bar)
-
-
-@cell_cached
-def cell_density(components, fractions=None, t_metering=15, p_metering_bar=P0_BAR) -> float:
-    """GAS_DENSITY: real-gas density [kg/m³]."""
-    return density(parse_composition(components, fractions), t_metering, p_metering_bar)
-
-
-@cell_cached
-def cell_rel_density(components, fractions=None, t_metering=15, p_metering_bar=P0_BAR) -> float:
-    """GAS_REL_DENSITY: relative density to dry air [-]."""
-    return relative_density(parse_composition(components, fractions), t_metering, p_metering_bar)

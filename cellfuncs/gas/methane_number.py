@@ -26,6 +26,7 @@ and licensed engineers.
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass
 from functools import lru_cache
 
@@ -33,6 +34,9 @@ from cellfuncs.errors import CellInputError, fmt
 from cellfuncs.gas import mn_diagrams as dg
 from cellfuncs.gas.composition import parse_composition
 from cellfuncs.gas.mn_split import Partial, split_combustibles
+
+#: longest text a cell function may return (Excel shows #VALUE! beyond it)
+TEXT_MAX = 255
 
 __all__ = [
     "MethaneNumber",
@@ -43,8 +47,6 @@ __all__ = [
     "split_combustibles",
     "Partial",
     "basis_text",
-    "cell_methane_number",
-    "cell_methane_number_basis",
     "METHODS",
 ]
 
@@ -514,27 +516,45 @@ def basis_text(comp, method: str = "en16726") -> str:
         return (f"linear MON correlation (Kubesh, King & Liss 1992), MN {v:.1f}; pipeline-type "
                 "natural gas only; gives 104.7 for pure methane")
     r = en16726_details(comp)
-    parts = ", ".join(f"{c} {s:.1f} %" for c, s in r.diagram_shares.items())
-    text = (f"EN 16726 Annex A, {r.plan}: {parts} of combustibles at MN {r.mn_combustibles:.2f}; "
-            f"inerts {r.inert_term:+.2f}")
-    if r.co2 > 0 and abs(r.a22_spread) >= 0.005:
-        text += f" (a22 sign unverified: the other sign gives {r.a22_spread:+.2f})"
+    full = _en16726_text(r, compact=False)
+    if len(full) <= TEXT_MAX:
+        return full
+    # Excel shows #VALUE! for a text over 255 characters: the compact form drops the notes'
+    # explanations (docs/methods.md has them) and rounds the shares, keeping every caution
+    full = _en16726_text(r, compact=True)
+    if len(full) <= TEXT_MAX:
+        return full
+    tail = "; unverified vs Table A.10"
+    return full[:TEXT_MAX - len(tail) - 1] + "…" + tail
+
+
+def _compact_note(note: str) -> str:
+    """``"CAUTION: leans on D06 for 12.3 % of the combustibles (why)"`` -> ``"CAUTION D06 12 %"``."""
+    m = re.match(r"(CAUTION|note): leans on (\S+) for ([0-9.eE+-]+) %", note)
+    if m:
+        return f"{m.group(1)} {m.group(2)} {float(m.group(3)):.0f} %"
+    return re.sub(r" \(.*\)$", "", note).replace("counted as nitrogen", "as N2")
+
+
+def _en16726_text(r, compact: bool) -> str:
+    """The EN 16726 line of :func:`basis_text`, full or compact."""
+    if compact:
+        parts = ", ".join(f"{c} {s:.0f} %" for c, s in r.diagram_shares.items())
+        text = f"EN 16726 A, {r.plan}: {parts} at MN {r.mn_combustibles:.2f}; inerts {r.inert_term:+.2f}"
+        if r.co2 > 0 and abs(r.a22_spread) >= 0.005:
+            text += f" (a22 other sign: {r.a22_spread:+.2f})"
+        notes = [_compact_note(n) for n in r.notes]
+        tail = "; unverified vs Table A.10"
+    else:
+        parts = ", ".join(f"{c} {s:.1f} %" for c, s in r.diagram_shares.items())
+        text = (f"EN 16726 Annex A, {r.plan}: {parts} of combustibles at MN "
+                f"{r.mn_combustibles:.2f}; inerts {r.inert_term:+.2f}")
+        if r.co2 > 0 and abs(r.a22_spread) >= 0.005:
+            text += f" (a22 sign unverified: the other sign gives {r.a22_spread:+.2f})"
+        notes = list(r.notes)
+        tail = "; figures unverified against Table A.10"
     if not any(c in dg.SUSPECT for c in r.diagram_shares):
         text += "; D06 not used"
-    if r.notes:
-        text += "; " + "; ".join(r.notes)
-    return text + "; figures unverified against Table A.10"
-
-
-# ---------------------------------------------------------------------------
-# cell wrappers
-
-
-def cell_methane_number(components, fractions=None, method="en16726") -> float:
-    """GAS_METHANE_NUMBER: methane number [-]."""
-    return methane_number(parse_composition(components, fractions), method)
-
-
-def cell_methane_number_basis(components, fractions=None, method="en16726") -> str:
-    """GAS_METHANE_NUMBER_BASIS: what the methane number leans on (one line of text)."""
-    return basis_text(parse_composition(components, fractions), method)
+    if notes:
+        text += "; " + "; ".join(notes)
+    return text + tail

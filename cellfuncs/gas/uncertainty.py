@@ -28,9 +28,9 @@ import math
 
 from cellfuncs.errors import CellInputError, check_range
 from cellfuncs.gas import iso6976
-from cellfuncs.gas.composition import cell_cached, Composition, paired_amounts, parse_composition
+from cellfuncs.gas.composition import Composition, parse_composition
 
-__all__ = ["ATOMIC_WEIGHTS", "cv_standard_uncertainty", "cv_uncertainty", "cell_cv_uncertainty"]
+__all__ = ["ATOMIC_WEIGHTS", "cv_standard_uncertainty", "cv_uncertainty"]
 
 #: element -> (standard atomic weight [g/mol], tabulated bracket U), IUPAC 2005 (from memory)
 ATOMIC_WEIGHTS = {
@@ -164,19 +164,3 @@ def cv_uncertainty(comp, u_x: dict, kind: str = "gross", basis: str = "volume", 
     """
     k = check_range("coverage", coverage, 1.0, 5.0, "-")
     return k * cv_standard_uncertainty(comp, u_x, kind, basis, ref, p_metering_bar)
-
-
-@cell_cached
-def cell_cv_uncertainty(components, fractions, u_fractions, kind="gross", basis="volume",
-                        ref="15/15", coverage=2.0) -> float:
-    """GAS_CV_UNCERTAINTY: expanded uncertainty of GAS_CV [MJ/m³, MJ/kg or kJ/mol].
-
-    ``u_fractions`` is in the unit of ``fractions`` (mol% or mole fraction) and
-    is scaled by the same normalisation.
-    """
-    comp = parse_composition(components, fractions)
-    if u_fractions is None:
-        raise CellInputError("u_fractions: the standard uncertainties of the amounts are needed")
-    raw = paired_amounts(components, u_fractions, "u_fractions")
-    u_x = {i: v / comp.total for i, v in raw.items() if v > 0}
-    return cv_uncertainty(comp, u_x, kind, basis, ref, coverage)

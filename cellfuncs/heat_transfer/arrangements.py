@@ -1,8 +1,10 @@
 """Flow-arrangement vocabulary shared by every heat-exchanger cell function.
 
 One set of words names the flow arrangement everywhere (``HX_F``, ``HX_UA``,
-``HX_AREA``, ``HX_EFFECTIVENESS``, ``HX_NTU``, ``HX_RATE``); ``HX_LMTD`` uses
-the first two only.  This module holds the words, a few accepted aliases, the
+``HX_AREA``, ``HX_EFFECTIVENESS``, ``HX_NTU``, ``HX_RATE``, the hot-water chain
+``HW_CHAIN_RATE`` and any new family); ``HX_LMTD`` uses the first two only.
+Every catalogue argument named ``arrangement`` takes its words and aliases
+from here (``tests/test_glossary.py`` checks it).  This module holds the words, a few accepted aliases, the
 phrases used in error messages and :func:`parse`.  It imports nothing heavy so
 the catalogue may import it.
 
@@ -69,7 +71,7 @@ ALIASES = {
     "4-8n": "4-8",
 }
 
-#: words of the ``output`` argument of HX_RATE
+#: words of the ``result`` argument of HX_RATE
 RATE_OUTPUTS = ("duty", "t_hot_out", "t_cold_out", "effectiveness", "all")
 
 #: number of shell passes of the shell-and-tube words

@@ -31,6 +31,10 @@ from cellfuncs.heat_transfer.lmtd import check_streams, terminal_differences
 
 __all__ = ["correction_factor", "capacity_terms", "f_of_streams"]
 
+#: relative distance to the largest effectiveness below which a P counts as at the limit
+#: (rounding of the four temperatures, ~1e-16, is far below; any real design far above)
+_AT_LIMIT = 1e-12
+
 
 def capacity_terms(thi, tho, tci, tco):
     """ε, Cr, P and R of four (checked) stream temperatures.
@@ -68,6 +72,9 @@ def _infeasible(arr, cr, p, r, cold_is_cmin):
     ps, pms = f"{p:.2f}", f"{pmax:.2f}"
     if ps == pms:
         ps, pms = f"{p:.4f}", f"{pmax:.4f}"
+    if ps == pms:
+        return (f"t_hot_out, t_cold_out: P = {ps} at R = {r:.2f} is the limit of {describe(arr)}, "
+                f"reached only with an infinite area; {advice(arr)}")
     return (f"t_hot_out, t_cold_out: {describe(arr)} cannot reach P = {ps} at "
             f"R = {r:.2f} (at most P = {pms}); {advice(arr)}")
 
@@ -94,6 +101,11 @@ def f_of_streams(thi, tho, tci, tco, arr):
         e, cr = dh / (thi - tci), dc / dh
     if cr == 0.0:  # one stream isothermal: every arrangement is counterflow
         return 1.0
+    if arr != "cross" and e >= _eff.epsilon_max(cr, arr) * (1.0 - _AT_LIMIT):
+        # at the arrangement's largest effectiveness NTU is infinite and F = 0; a P equal to
+        # the limit to rounding must not come back as a small but finite F
+        _, _, p, r = capacity_terms(thi, tho, tci, tco)
+        raise CellInputError(_infeasible(arr, cr, p, r, dc >= dh))
     try:
         ntu_a = _eff._ntu_core(e, cr, arr)
     except _eff._Infeasible:

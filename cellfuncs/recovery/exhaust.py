@@ -34,10 +34,6 @@ __all__ = [
     "exhaust_heat",
     "exhaust_dewpoint",
     "o2_correct",
-    "cell_exh_flow",
-    "cell_exh_composition",
-    "cell_exh_heat",
-    "cell_exh_dewpoint",
 ]
 
 #: species words of EXH_COMPOSITION -> flue-gas species id
@@ -440,39 +436,3 @@ def o2_correct(concentration: float, o2_measured: float, o2_reference: float) ->
     ref = check_range("o2_reference", o2_reference, 0.0, O2_AIR_PERCENT, "vol-%", hi_open=True,
                       where="below the 20.9 vol-% of dry air")
     return c * (O2_AIR_PERCENT - ref) / (O2_AIR_PERCENT - meas)
-
-
-# ---- cell wrappers -------------------------------------------------------------------
-
-def cell_exh_flow(fuel_power_kw, lambda_, components, fractions=None, kind="net", t_ambient=25.0,
-                  rh_ambient=0.3, p_ambient_bar=1.0):
-    """EXH_FLOW [kg/h]."""
-    return exhaust_flow(fuel_power_kw, lambda_, _comp_cells(components, fractions), kind,
-                        t_ambient, rh_ambient, p_ambient_bar)
-
-
-def cell_exh_composition(lambda_, components, fractions, species, basis="wet", t_ambient=25.0,
-                         rh_ambient=0.3, p_ambient_bar=1.0):
-    """EXH_COMPOSITION [-]."""
-    return exhaust_composition(lambda_, _comp_cells(components, fractions), species, basis,
-                               t_ambient, rh_ambient, p_ambient_bar)
-
-
-def cell_exh_heat(exhaust_flow_kg_h, t_in, t_out, lambda_, components, fractions=None,
-                  t_ambient=25.0, rh_ambient=0.3, p_ambient_bar=1.0):
-    """EXH_HEAT [kW]."""
-    return exhaust_heat(exhaust_flow_kg_h, t_in, t_out, lambda_, _comp_cells(components, fractions),
-                        t_ambient, rh_ambient, p_ambient_bar)
-
-
-def cell_exh_dewpoint(lambda_, components, fractions=None, p_bar=1.01325, t_ambient=25.0,
-                      rh_ambient=0.3, p_ambient_bar=1.0):
-    """EXH_DEWPOINT [°C]."""
-    return exhaust_dewpoint(lambda_, _comp_cells(components, fractions), p_bar, t_ambient,
-                            rh_ambient, p_ambient_bar)
-
-
-def _comp_cells(components, fractions):
-    from cellfuncs.gas.composition import parse_composition
-
-    return parse_composition(components, fractions)

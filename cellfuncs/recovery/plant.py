@@ -362,10 +362,21 @@ def chp_balance_check(fuel_power_kw: float, electrical_kw: float, heat_flows_kw,
     rest = fuel - out
     share = rest / fuel
     if share < BALANCE_OK_LOW:
-        pct = round(-share * 100, 1) + 0.0
-        return f"FIRST-LAW VIOLATION: outputs exceed the fuel by {round(-rest)} kW ({pct:.1f} %)"
-    kw, pct = round(rest), round(share * 100, 1) + 0.0  # + 0.0: no "-0.0"
+        return (f"FIRST-LAW VIOLATION: outputs exceed the fuel by {_kw_text(-rest)} kW "
+                f"({_pct_text(-share)} %)")
+    kw, pct = _kw_text(rest), _pct_text(share)
     if share > BALANCE_OK_HIGH:
-        return (f"CHECK: {kw} kW ({pct:.1f} %) of the fuel unaccounted, more than 5 %; "
+        return (f"CHECK: {kw} kW ({pct} %) of the fuel unaccounted, more than 5 %; "
                 "a heat flow or loss is missing")
-    return f"OK: {kw} kW ({pct:.1f} %) of the fuel unaccounted, within -0.5 % to 5 %"
+    return f"OK: {kw} kW ({pct} %) of the fuel unaccounted, within -0.5 % to 5 %"
+
+
+def _kw_text(kw: float) -> str:
+    """Whole kW; six significant digits beyond a plant's size (the text stays short)."""
+    return str(round(kw) + 0) if abs(kw) < 1e9 else f"{kw:.6g}"
+
+
+def _pct_text(share: float) -> str:
+    """A share of the fuel in per cent with one decimal ("-0.0" written as "0.0")."""
+    pct = share * 100
+    return f"{round(pct, 1) + 0.0:.1f}" if abs(pct) < 1e6 else f"{pct:.3g}"
