@@ -74,7 +74,7 @@ def _json_value(v):
 
 def cmd_recalc(ns) -> int:
     from cellfuncs import headless
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.xlsx import BookError, check_output_kind
 
     if not ns.book.lower().endswith((".xlsx", ".xlsm")) and os.path.isfile(ns.book):
         raise UsageError(f"{ns.book}: not an .xlsx workbook")
@@ -82,6 +82,9 @@ def cmd_recalc(ns) -> int:
     sets = _parse_sets(ns.set)
     try:
         res, pkg = headless.recalc(ns.book, sets)
+        check_output_kind(pkg, ns.output)
+        if ns.values:
+            pkg.values_only()
         headless.write_with_cached_values(res, pkg, ns.output)
     except BookError as exc:
         raise UsageError(str(exc)) from None
@@ -146,6 +149,8 @@ def build_parser() -> argparse.ArgumentParser:
     r.add_argument("--set", action="append", metavar="REF=VALUE",
                    help="override an input before computing (Sheet!A1 or a defined name)")
     r.add_argument("--json", action="store_true", help="print every formula cell's value as JSON")
+    r.add_argument("--values", action="store_true",
+                   help="write a values-only copy: every formula replaced by its value (charts, styles kept)")
     r.set_defaults(func=cmd_recalc)
 
     f = sub.add_parser("functions", help="list the cell functions")

@@ -1,0 +1,278 @@
+"""The edits of a worksheet part, each one pass of :func:`cellfuncs.xlsx_sheet.walk`.
+
+Every function takes the part's bytes and returns new bytes in which only the spans it had to
+change differ; see :mod:`cellfuncs.xlsx_sheet` for how cells are located.
+"""
+
+from __future__ import annotations
+
+from cellfuncs.xlsx_formula import shift_formula
+from cellfuncs.xlsx_sheet import _Visitor, _esc, _num_text, apply_edits, col_text, start_tag, walk
+
+__all__ = ["extent", "map_formulas", "drop_empty", "edit_cells", "expand_shared", "to_values",
+           "read_cells"]
+
+
+def _err(msg):
+    from cellfuncs.xlsx import BookError
+
+    return BookError(msg)
+
+
+def extent(data: bytes) -> tuple:
+    """(last row, last column) of the cells present."""
+
+    class V(_Visitor):
+        rows = cols = 0
+
+        def cell(self, cell, row):
+            V.rows = max(V.rows, cell.row)
+            V.cols = max(V.cols, cell.col)
+
+    walk(data, V())
+    return V.rows, V.cols
+
+
+def read_cells(data: bytes) -> dict:
+    """{(row, col): (formula text or None, type, value text or None)} of every cell present."""
+    out = {}
+
+    class V(_Visitor):
+        def cell(self, cell, row):
+            f = None
+            if cell.f is not None:
+                f = cell.f.text if cell.f.text else ("" if cell.f.empty else cell.f.text)
+            v = cell.v.text if cell.v is not None else (cell.is_.text if cell.is_ is not None else None)
+            out[(cell.row, cell.col)] = (f, cell.el.attrs.get("t", "n"), v)
+
+    walk(data, V())
+    return out
+
+
+def map_formulas(data: bytes, fn) -> bytes:
+    """Apply ``fn(text) -> text`` to the text of every formula element that has text."""
+    edits = []
+
+    class V(_Visitor):
+        def cell(self, cell, row):
+            f = cell.f
+            if f is not None and not f.empty:
+                edits.append((f.open_end, f.close, _esc(fn(f.text))))
+
+    walk(data, V())
+    return apply_edits(data, edits)
+
+
+def _add_r(data, el, ref):
+    qlen = 0
+    i = el.start + 1
+    while data[i:i + 1] not in (b" ", b"\t", b"\r", b"\n", b"/", b">"):
+        i += 1
+        qlen += 1
+    pos = el.start + 1 + qlen
+    return (pos, pos, f' r="{ref}"'.encode())
+
+
+def drop_empty(data: bytes) -> bytes:
+    """Remove ``dimension`` and cells with no content; give every row and cell an explicit ``r``."""
+    edits = []
+
+    class V(_Visitor):
+        def dimension(self, el):
+            edits.append((el.start, el.end, b""))
+
+        def row_start(self, row):
+            if not row.explicit:
+                edits.append(_add_r(data, row.el, str(row.num)))
+
+        def cell(self, cell, row):
+            if cell.nkids == 0:
+                edits.append((cell.el.start, cell.el.end, b""))
+            elif not cell.explicit:
+                edits.append(_add_r(data, cell.el, f"{col_text(cell.col)}{cell.row}"))
+
+    walk(data, V())
+    return apply_edits(data, edits)
+
+
+def _value_xml(p: str, value, formula_cell: bool, is_error) -> tuple:
+    """(t attribute text, inner bytes) for a value."""
+    if value is None:
+        return "", b""
+    if is_error(value):
+        return ' t="e"', f"<{p}v>".encode() + _esc(str(value)) + f"</{p}v>".encode()
+    if isinstance(value, bool):
+        return ' t="b"', f"<{p}v>{int(value)}</{p}v>".encode()
+    if isinstance(value, (int, float)):
+        return "", f"<{p}v>{_num_text(value)}</{p}v>".encode()
+    text = _esc(str(value))
+    if formula_cell:
+        return ' t="str"', f"<{p}v>".encode() + text + f"</{p}v>".encode()
+    return (' t="inlineStr"', f'<{p}is><{p}t xml:space="preserve">'.encode() + text + f"</{p}t></{p}is>".encode())
+
+
+def _cell_bytes(data, p, ref, old, value, formula_cell, is_error) -> bytes:
+    t, inner = _value_xml(p, value, formula_cell, is_error)
+    f_raw = b""
+    ext = b""
+    head = f'<{p}c r="{ref}"'.encode()
+    if old is not None:
+        tag = start_tag(data, old.el, drop=("r", "t", "vm"))[:-1]
+        head = tag.replace(f"<{old.el.prefix}c".encode(), head, 1)
+        if formula_cell and old.f is not None:
+            f_raw = data[old.f.start:old.f.end]
+        ext = b"".join(data[e.start:e.end] for e in old.others)
+    body = f_raw + inner + ext
+    if not body:
+        return head + t.encode() + b"/>"
+    return head + t.encode() + b">" + body + f"</{p}c>".encode()
+
+
+def edit_cells(data: bytes, cells: dict, formula_cell: bool, is_error, what: str = "sheet") -> bytes:
+    """Write ``{(row, col): value}`` into the cells (inserting missing rows and cells in order).
+
+    ``formula_cell`` keeps each cell's formula and writes the value as its cached result; otherwise
+    the value replaces the cell's content (an input).
+    """
+    by_row: dict = {}
+    for (r, c), v in cells.items():
+        by_row.setdefault(r, {})[c] = v
+    pending_rows = sorted(by_row)
+    edits = []
+    state = {"p": "", "next": 0, "done_rows": set(), "inserted": False, "seen_sd": False}
+
+    def new_row(r):
+        p = state["p"]
+        inner = b"".join(_cell_bytes(data, p, f"{col_text(c)}{r}", None, by_row[r][c], formula_cell, is_error)
+                         for c in sorted(by_row[r]))
+        state["done_rows"].add(r)
+        return f'<{p}row r="{r}">'.encode() + inner + f"</{p}row>".encode()
+
+    def rows_before(limit):
+        out = []
+        while state["next"] < len(pending_rows) and pending_rows[state["next"]] < limit:
+            r = pending_rows[state["next"]]
+            state["next"] += 1
+            if r not in state["done_rows"]:
+                out.append(new_row(r))
+        return b"".join(out)
+
+    class V(_Visitor):
+        def sheet_data_start(self, el):
+            state["p"] = el.prefix
+            state["seen_sd"] = True
+
+        def row_start(self, row):
+            ins = rows_before(row.num)
+            if ins:
+                edits.append((row.el.start, row.el.start, ins))
+            state["row_targets"] = by_row.get(row.num)
+            state["row_done"] = set()
+            state["row_ins"] = False
+
+        def cell(self, cell, row):
+            targets = state["row_targets"]
+            if not targets or row.num in state["done_rows"]:
+                return
+            p = state["p"]
+            ins = [c for c in sorted(targets) if c < cell.col and c not in state["row_done"]]
+            if ins:
+                edits.append((cell.el.start, cell.el.start, b"".join(
+                    _cell_bytes(data, p, f"{col_text(c)}{row.num}", None, targets[c], formula_cell, is_error)
+                    for c in ins)))
+                state["row_done"].update(ins)
+                state["row_ins"] = True
+            if cell.col in targets:
+                edits.append((cell.el.start, cell.el.end, _cell_bytes(
+                    data, p, f"{col_text(cell.col)}{row.num}", cell, targets[cell.col], formula_cell, is_error)))
+                state["row_done"].add(cell.col)
+
+        def row_end(self, row):
+            targets = state["row_targets"]
+            if not targets or row.num in state["done_rows"]:
+                return
+            p = state["p"]
+            rest = [c for c in sorted(targets) if c not in state["row_done"]]
+            tail = b"".join(_cell_bytes(data, p, f"{col_text(c)}{row.num}", None, targets[c], formula_cell,
+                                        is_error) for c in rest)
+            if row.el.empty:
+                head = start_tag(data, row.el, drop=("spans",))
+                edits.append((row.el.start, row.el.end, head + tail + f"</{row.el.prefix}row>".encode()))
+            else:
+                if tail:
+                    edits.append((row.el.close, row.el.close, tail))
+                if tail or state["row_ins"]:
+                    edits.append((row.el.start, row.el.open_end, start_tag(data, row.el, drop=("spans",))))
+            state["done_rows"].add(row.num)
+
+        def sheet_data_end(self, el):
+            ins = rows_before(float("inf"))
+            p = el.prefix
+            if el.empty:
+                edits.append((el.start, el.end, start_tag(data, el) + ins + f"</{p}sheetData>".encode()))
+            elif ins:
+                edits.append((el.close, el.close, ins))
+
+    walk(data, V(), what)
+    if not state["seen_sd"]:
+        raise _err(f"{what}: has no cell data (sheetData)")
+    return apply_edits(data, edits)
+
+
+def expand_shared(data: bytes) -> bytes:
+    """Write every shared formula out in full in each cell of its group."""
+    masters: dict = {}
+    edits = []
+
+    class V(_Visitor):
+        def cell(self, cell, row):
+            f = cell.f
+            if f is None or f.attrs.get("t") != "shared":
+                return
+            si = f.attrs.get("si")
+            p = f.prefix
+            if f.text:
+                masters[si] = (cell.row, cell.col, f.text)
+                edits.append((f.start, f.open_end, start_tag(data, f, drop=("t", "si", "ref"))))
+                return
+            m = masters.get(si)
+            if m is None:
+                return
+            text = shift_formula(m[2], cell.row - m[0], cell.col - m[1])
+            edits.append((f.start, f.end, start_tag(data, f, drop=("t", "si", "ref")) + _esc(text)
+                          + f"</{p}f>".encode()))
+
+    walk(data, V())
+    return apply_edits(data, edits)
+
+
+def to_values(data: bytes) -> bytes:
+    """Every formula cell holds only its cached value (text results become inline strings)."""
+    edits = []
+
+    class V(_Visitor):
+        def cell(self, cell, row):
+            if cell.f is None:
+                return
+            el = cell.el
+            t = el.attrs.get("t", "n")
+            p = el.prefix
+            ext = b"".join(data[e.start:e.end] for e in cell.others)
+            head = start_tag(data, el, drop=("r", "t", "cm"))[:-1]
+            head = head.replace(f"<{p}c".encode(), f'<{p}c r="{col_text(cell.col)}{cell.row}"'.encode(), 1)
+            if cell.v is None and cell.is_ is None:
+                body, tt = b"", ""
+            elif t == "str" and cell.v is not None:
+                body = f'<{p}is><{p}t xml:space="preserve">'.encode() + _esc(cell.v.text or "") + \
+                    f"</{p}t></{p}is>".encode()
+                tt = ' t="inlineStr"'
+            else:
+                keep = cell.v if cell.v is not None else cell.is_
+                body = data[keep.start:keep.end]
+                tt = f' t="{t}"' if t != "n" else ""
+            body += ext
+            new = head + tt.encode() + (b">" + body + f"</{p}c>".encode() if body else b"/>")
+            edits.append((el.start, el.end, new))
+
+    walk(data, V())
+    return apply_edits(data, edits)
