@@ -30,7 +30,7 @@ import zipfile
 from urllib.parse import unquote
 
 from cellfuncs import xlsx_edit, xlsx_zip
-from cellfuncs.xlsx_sheet import find_elements, start_tag
+from cellfuncs.xlsx_sheet import find_elements, open_end, start_tag
 
 __all__ = ["BookError", "ErrorText", "Package", "check_output_kind", "col_index", "col_letters", "split_ref"]
 
@@ -44,7 +44,6 @@ class ErrorText(str):
 
 
 MAX_ROW, MAX_COL = 1048576, 16384  # the size of a worksheet
-_REL_NS = "http://schemas.openxmlformats.org/officeDocument/2006/relationships"
 _WORKSHEET = "/worksheet"
 _MACRO_TYPES = ("macroenabled",)
 _REF_RE = re.compile(r"^\$?([A-Za-z]{1,3})\$?(\d+)$")  # a reference text, not XML
@@ -130,6 +129,7 @@ class Package:
     def __init__(self, path: str):
         self.label = path
         self._values_only = False
+        self._extent: dict = {}  # part -> (the bytes it was computed for, extent)
         if not os.path.isfile(path):
             raise BookError(f"{path}: no such file")
         try:
@@ -197,8 +197,7 @@ class Package:
             targets[el.attrs.get("Id")] = (_resolve(wb, el.attrs.get("Target", "")), el.attrs.get("Type", ""))
         out, kinds = {}, {}
         for el in find_elements(self._xml(wb), {"sheet"}, wb):
-            rid = el.attrs.get("{%s}id" % _REL_NS) or next(
-                (v for k, v in el.attrs.items() if k.endswith("}id")), None)
+            rid = el.attrs.get("r:id") or next((v for k, v in el.attrs.items() if k.endswith(":id")), None)
             target = targets.get(rid)
             if not target or "name" not in el.attrs:
                 continue
@@ -242,7 +241,14 @@ class Package:
     @_one_line_memory
     def used_extent(self) -> dict:
         """Rows × columns spanned by the cells that are present, per sheet."""
-        return {name: xlsx_edit.extent(self._xml(path)) for name, path in self._worksheets().items()}
+        out = {}
+        for name, path in self._worksheets().items():
+            known = self._extent.get(path)
+            if known is not None and known[0] is self.parts[path]:
+                out[name] = known[1]
+            else:
+                out[name] = xlsx_edit.extent(self._xml(path))
+        return out
 
     # -- cell edits ------------------------------------------------------------------
     def set_values(self, values: dict):
@@ -272,7 +278,7 @@ class Package:
         """Stop readers recomputing on load (they would lose our numbers)."""
         wb = self.workbook_part
         data = self._xml(wb)
-        edits = [(el.start, el.open_end, start_tag(data, el, drop=("fullCalcOnLoad",), empty=el.empty))
+        edits = [(el.start, open_end(data, el), start_tag(el, drop=("fullCalcOnLoad",), empty=el.empty))
                  for el in find_elements(data, {"calcPr"}, wb) if "fullCalcOnLoad" in el.attrs]
         if edits:
             from cellfuncs.xlsx_sheet import apply_edits
@@ -288,7 +294,9 @@ class Package:
         row and cell is given an explicit ``r`` on the way (readers that need it are served).
         """
         for path in self._worksheets().values():
-            self._rewrite(path, xlsx_edit.drop_empty)
+            data, extent = xlsx_edit.drop_empty(self._xml(path))
+            self.parts[path] = data
+            self._extent[path] = (data, extent)
 
     @_one_line_memory
     def map_formulas(self, fn):

@@ -8,6 +8,7 @@ from __future__ import annotations
 
 from cellfuncs.xlsx_formula import shift_formula
 from cellfuncs.xlsx_sheet import _Visitor, _esc, _num_text, apply_edits, col_text, start_tag, walk
+from cellfuncs.xlsx_sheet import open_end as opened
 
 __all__ = ["extent", "map_formulas", "drop_empty", "edit_cells", "expand_shared", "to_values",
            "read_cells"]
@@ -29,7 +30,7 @@ def extent(data: bytes) -> tuple:
             V.rows = max(V.rows, cell.row)
             V.cols = max(V.cols, cell.col)
 
-    walk(data, V())
+    walk(data, V(), text=False)
     return V.rows, V.cols
 
 
@@ -57,25 +58,24 @@ def map_formulas(data: bytes, fn) -> bytes:
         def cell(self, cell, row):
             f = cell.f
             if f is not None and not f.empty:
-                edits.append((f.open_end, f.close, _esc(fn(f.text))))
+                edits.append((opened(data, f), f.close, _esc(fn(f.text))))
 
     walk(data, V())
     return apply_edits(data, edits)
 
 
 def _add_r(data, el, ref):
-    qlen = 0
-    i = el.start + 1
-    while data[i:i + 1] not in (b" ", b"\t", b"\r", b"\n", b"/", b">"):
-        i += 1
-        qlen += 1
-    pos = el.start + 1 + qlen
+    pos = el.start + 1 + len(el.prefix) + len(el.local)
     return (pos, pos, f' r="{ref}"'.encode())
 
 
-def drop_empty(data: bytes) -> bytes:
-    """Remove ``dimension`` and cells with no content; give every row and cell an explicit ``r``."""
+def drop_empty(data: bytes) -> tuple:
+    """Remove ``dimension`` and cells with no content; give every row and cell an explicit ``r``.
+
+    Returns (new bytes, (last row, last column) of the cells kept).
+    """
     edits = []
+    kept = [0, 0]
 
     class V(_Visitor):
         def dimension(self, el):
@@ -88,11 +88,16 @@ def drop_empty(data: bytes) -> bytes:
         def cell(self, cell, row):
             if cell.nkids == 0:
                 edits.append((cell.el.start, cell.el.end, b""))
-            elif not cell.explicit:
+                return
+            if not cell.explicit:
                 edits.append(_add_r(data, cell.el, f"{col_text(cell.col)}{cell.row}"))
+            if cell.row > kept[0]:
+                kept[0] = cell.row
+            if cell.col > kept[1]:
+                kept[1] = cell.col
 
-    walk(data, V())
-    return apply_edits(data, edits)
+    walk(data, V(), text=False)
+    return apply_edits(data, edits), (kept[0], kept[1])
 
 
 def _value_xml(p: str, value, formula_cell: bool, is_error) -> tuple:
@@ -117,8 +122,7 @@ def _cell_bytes(data, p, ref, old, value, formula_cell, is_error) -> bytes:
     ext = b""
     head = f'<{p}c r="{ref}"'.encode()
     if old is not None:
-        tag = start_tag(data, old.el, drop=("r", "t", "vm"))[:-1]
-        head = tag.replace(f"<{old.el.prefix}c".encode(), head, 1)
+        head = start_tag(old.el, drop=("r", "t", "vm"), first=f' r="{ref}"')[:-1]
         if formula_cell and old.f is not None:
             f_raw = data[old.f.start:old.f.end]
         ext = b"".join(data[e.start:e.end] for e in old.others)
@@ -196,24 +200,24 @@ def edit_cells(data: bytes, cells: dict, formula_cell: bool, is_error, what: str
             tail = b"".join(_cell_bytes(data, p, f"{col_text(c)}{row.num}", None, targets[c], formula_cell,
                                         is_error) for c in rest)
             if row.el.empty:
-                head = start_tag(data, row.el, drop=("spans",))
+                head = start_tag(row.el, drop=("spans",))
                 edits.append((row.el.start, row.el.end, head + tail + f"</{row.el.prefix}row>".encode()))
             else:
                 if tail:
                     edits.append((row.el.close, row.el.close, tail))
                 if tail or state["row_ins"]:
-                    edits.append((row.el.start, row.el.open_end, start_tag(data, row.el, drop=("spans",))))
+                    edits.append((row.el.start, opened(data, row.el), start_tag(row.el, drop=("spans",))))
             state["done_rows"].add(row.num)
 
         def sheet_data_end(self, el):
             ins = rows_before(float("inf"))
             p = el.prefix
             if el.empty:
-                edits.append((el.start, el.end, start_tag(data, el) + ins + f"</{p}sheetData>".encode()))
+                edits.append((el.start, el.end, start_tag(el) + ins + f"</{p}sheetData>".encode()))
             elif ins:
                 edits.append((el.close, el.close, ins))
 
-    walk(data, V(), what)
+    walk(data, V(), what, text=False)
     if not state["seen_sd"]:
         raise _err(f"{what}: has no cell data (sheetData)")
     return apply_edits(data, edits)
@@ -233,13 +237,13 @@ def expand_shared(data: bytes) -> bytes:
             p = f.prefix
             if f.text:
                 masters[si] = (cell.row, cell.col, f.text)
-                edits.append((f.start, f.open_end, start_tag(data, f, drop=("t", "si", "ref"))))
+                edits.append((f.start, opened(data, f), start_tag(f, drop=("t", "si", "ref"))))
                 return
             m = masters.get(si)
             if m is None:
                 return
             text = shift_formula(m[2], cell.row - m[0], cell.col - m[1])
-            edits.append((f.start, f.end, start_tag(data, f, drop=("t", "si", "ref")) + _esc(text)
+            edits.append((f.start, f.end, start_tag(f, drop=("t", "si", "ref")) + _esc(text)
                           + f"</{p}f>".encode()))
 
     walk(data, V())
@@ -258,8 +262,7 @@ def to_values(data: bytes) -> bytes:
             t = el.attrs.get("t", "n")
             p = el.prefix
             ext = b"".join(data[e.start:e.end] for e in cell.others)
-            head = start_tag(data, el, drop=("r", "t", "cm"))[:-1]
-            head = head.replace(f"<{p}c".encode(), f'<{p}c r="{col_text(cell.col)}{cell.row}"'.encode(), 1)
+            head = start_tag(el, drop=("r", "t", "cm"), first=f' r="{col_text(cell.col)}{cell.row}"')[:-1]
             if cell.v is None and cell.is_ is None:
                 body, tt = b"", ""
             elif t == "str" and cell.v is not None:

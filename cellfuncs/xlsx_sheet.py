@@ -32,17 +32,31 @@ def _err(msg):
 
 
 class El:
-    """An element's byte span: ``start`` ('<'), ``open_end`` (after the start tag), ``close`` (its
-    end tag, or open_end when empty) and ``end``; ``attrs`` by local name, ``prefix`` like ``"x:"``."""
+    """An element's byte span: ``start`` ('<'), ``close`` (its end tag, or ``end`` when empty) and
+    ``end``; :func:`open_end` gives the end of its start tag.  ``attrs`` as expat reports them
+    (qualified names as "uri local prefix"), ``prefix`` like ``"x:"``."""
 
-    __slots__ = ("local", "prefix", "start", "open_end", "close", "end", "attrs", "empty", "text", "kids")
+    __slots__ = ("local", "prefix", "start", "_open_end", "close", "end", "attrs", "empty", "text")
 
-    def __init__(self, local, prefix, start, open_end, attrs, empty):
-        self.local, self.prefix, self.start, self.open_end = local, prefix, start, open_end
-        self.attrs, self.empty = attrs, empty
-        self.close = self.end = open_end
-        self.text = None
-        self.kids = None
+    def __init__(self, local, prefix, start, attrs):
+        self.local, self.prefix, self.start, self.attrs = local, prefix, start, attrs
+        self._open_end = self.close = self.end = self.text = None
+        self.empty = False
+
+
+def open_end(data: bytes, el: El) -> int:
+    """Index after the element's start tag (computed once)."""
+    if el._open_end is None:
+        if el.empty:
+            el._open_end = el.end
+        elif not el.attrs:  # nothing but the name (and maybe blanks) in the tag
+            el._open_end = data.find(b">", el.start + 1 + len(el.prefix) + len(el.local)) + 1
+        else:
+            el._open_end = tag_end(data, el.start)
+    return el._open_end
+
+
+_GT = (b">", b" ", b"\t", b"\r", b"\n")
 
 
 def tag_end(data: bytes, i: int) -> int:
@@ -60,60 +74,17 @@ def tag_end(data: bytes, i: int) -> int:
         i = close + 1 if close >= 0 else len(data)
 
 
-def attr_pieces(data: bytes, start: int, open_end: int):
-    """(qname_length, [(attribute qname, raw bytes with its leading space)]) of a start tag."""
-    i = start + 1
-    while i < open_end and data[i] not in _WS and data[i] not in b"/>":
-        i += 1
-    qlen = i - start - 1
-    out = []
-    while i < open_end:
-        j = i
-        while j < open_end and data[j] in _WS:
-            j += 1
-        if j >= open_end or data[j] in b"/>":
-            break
-        k = data.find(b"=", j, open_end)
-        name = data[j:k].strip().decode("utf-8")
-        q = k + 1
-        while data[q] in _WS:
-            q += 1
-        close = data.find(data[q:q + 1], q + 1)
-        out.append((name, data[i:close + 1]))
-        i = close + 1
-    return qlen, out
-
-
 def _split(name: str):
-    parts = name.split(" ")
-    if len(parts) == 1:
-        return parts[0], ""
-    local = parts[1]
-    prefix = parts[2] + ":" if len(parts) > 2 else ""
-    return local, prefix
+    """("c", "x:", b"</x:c") for the qualified name "x:c"."""
+    prefix, _, local = name.rpartition(":")
+    prefix = prefix + ":" if prefix else ""
+    return local, prefix, ("</" + name).encode("utf-8")
 
 
-def _attrs(raw: dict) -> dict:
-    out = {}
-    for k, v in raw.items():
-        if " " in k:
-            bits = k.split(" ")
-            out["{" + bits[0] + "}" + bits[1]] = v
-        else:
-            out[k] = v
-    return out
-
-
-def _parser(data: bytes):
-    p = expat.ParserCreate(namespace_separator=" ")
-    p.namespace_prefixes = True
+def _parser():
+    p = expat.ParserCreate()
     p.buffer_text = True
-
-    def doctype(*_a):
-        raise _err("a DOCTYPE declaration in a workbook part (refused)")
-
-    p.StartDoctypeDeclHandler = doctype
-    p.EntityDeclHandler = doctype
+    p.StartDoctypeDeclHandler = p.EntityDeclHandler = _refuse_doctype
     return p
 
 
@@ -125,16 +96,20 @@ def _parse(p, data: bytes, what: str):
 
 
 def find_elements(data: bytes, locals_: set, what: str = "part") -> list:
-    """Every element whose local name is in ``locals_``, with its span and attributes."""
-    p = _parser(data)
+    """Every element whose local name is in ``locals_``, with its span and attributes (by the
+    qualified names written in the part)."""
+    p = _parser()
     found, stack = [], []
 
     def start(name, attrs):
-        local, prefix = _split(name)
+        local, prefix, _ = _split(name)
         if local in locals_:
             i = p.CurrentByteIndex
             e = tag_end(data, i)
-            el = El(local, prefix, i, e, _attrs(attrs), data[e - 2:e] == b"/>")
+            el = El(local, prefix, i, attrs)
+            el._open_end = e
+            if data[e - 2:e] == b"/>":
+                el.empty, el.close, el.end = True, e, e
             found.append(el)
             stack.append(el)
         else:
@@ -165,12 +140,14 @@ def apply_edits(data: bytes, edits: list) -> bytes:
     return b"".join(out)
 
 
-def start_tag(data: bytes, el: El, drop=(), add: str = "", empty: bool = False) -> bytes:
-    """The element's start tag rebuilt: attributes in ``drop`` removed, ``add`` appended (text)."""
-    qlen, pieces = attr_pieces(data, el.start, el.open_end)
-    qname = data[el.start + 1: el.start + 1 + qlen]
-    kept = b"".join(raw for name, raw in pieces if name not in drop)
-    return b"<" + qname + kept + add.encode("utf-8") + (b"/>" if empty else b">")
+_ATTR_ENT = {'"': "&quot;", "\n": "&#10;", "\r": "&#13;", "\t": "&#9;"}
+
+
+def start_tag(el: El, drop=(), first: str = "", empty: bool = False) -> bytes:
+    """The element's start tag rebuilt from its attributes (document order, double quotes):
+    ``first`` (text) right after the name, attributes in ``drop`` left out."""
+    kept = "".join(f' {k}="{escape(v, _ATTR_ENT)}"' for k, v in el.attrs.items() if k not in drop)
+    return f"<{el.prefix}{el.local}{first}{kept}{'/>' if empty else '>'}".encode("utf-8")
 
 
 # -- walking sheetData ---------------------------------------------------------------------------
@@ -192,137 +169,168 @@ class Row:
         self.num, self.el, self.explicit, self.last_col = num, el, explicit, 0
 
 
-def walk(data: bytes, visitor, what: str = "sheet") -> None:
+def walk(data: bytes, visitor, what: str = "sheet", text: bool = True) -> None:
     """Parse a worksheet part, calling ``visitor`` methods with spans:
 
     ``dimension(el)``, ``sheet_data_start(el)``, ``row_start(row)``, ``cell(cell, row)``,
-    ``row_end(row)``, ``sheet_data_end(el)``.
-    """
-    p = _parser(data)
-    st = {"depth": 0, "sd": None, "dim": None, "inside": False, "row": None, "cell": None, "kid": None,
-          "collect": None, "in_rph": 0, "last_row": 0}
+    ``row_end(row)``, ``sheet_data_end(el)``.  ``text=False`` skips collecting formula and value
+    text and the spans of ``v`` and ``is`` (faster when only positions matter).
 
-    def open_el(local, prefix, attrs):
+    Elements are matched by local name at their depth (root, sheetData, row, c, child of c), so a
+    prefixed part (``x:c``) reads like an unprefixed one.
+    """
+    p = _parser()
+    names: dict = {}
+    depth = 0
+    sd = dim = row = cell = kid = collect = None
+    inside = False
+    in_rph = 0
+    last_row = 0
+    startswith = data.startswith
+    find = data.find
+
+    def split(name):
+        got = names.get(name)
+        if got is None:
+            got = names[name] = _split(name)
+        return got
+
+    def finish(el, close_tag):
+        """Set el's end from the end event: its end tag starts there, or the empty element ended."""
         i = p.CurrentByteIndex
-        e = tag_end(data, i)
-        return El(local, prefix, i, e, attrs, data[e - 2:e] == b"/>")
+        n = len(close_tag)
+        if startswith(close_tag, i) and data[i + n:i + n + 1] in _GT:
+            el.close = i
+            el.end = find(b">", i) + 1
+        else:
+            el.empty = True
+            el.close = el.end = i
 
     def start(name, attrs):
-        d = st["depth"]
-        st["depth"] = d + 1
-        local, prefix = _split(name)
-        if d == 1:
-            if local == "dimension":
-                st["dim"] = open_el(local, prefix, attrs)
-            elif local == "sheetData" and st["sd"] is None:
-                el = st["sd"] = open_el(local, prefix, attrs)
-                st["inside"] = not el.empty
-                visitor.sheet_data_start(el)
+        nonlocal depth, sd, dim, inside, row, cell, kid, collect, in_rph, last_row
+        d = depth
+        depth = d + 1
+        if not inside:
+            if d == 1:
+                local, prefix, _ = split(name)
+                if local == "dimension":
+                    dim = El(local, prefix, p.CurrentByteIndex, attrs)
+                elif local == "sheetData" and sd is None:
+                    sd = El(local, prefix, p.CurrentByteIndex, attrs)
+                    inside = True
+                    visitor.sheet_data_start(sd)
             return
-        if not st["inside"]:
-            return
-        if d == 2:
-            if local == "row":
-                r = attrs.get("r")
-                num = int(r) if r else st["last_row"] + 1
-                st["last_row"] = num
-                st["row"] = Row(num, open_el(local, prefix, attrs), bool(r))
-                visitor.row_start(st["row"])
-        elif d == 3:
-            row = st["row"]
-            if local == "c" and row is not None:
-                ref = attrs.get("r")
-                col = _ref_col(ref) if ref else row.last_col + 1
-                row.last_col = col
-                st["cell"] = Cell(row.num, col, open_el(local, prefix, attrs), bool(ref))
+        if d == 3:
+            if row is not None:
+                local, prefix, _ = split(name)
+                if local == "c":
+                    ref = attrs.get("r")
+                    col = _ref_col(ref) if ref else row.last_col + 1
+                    row.last_col = col
+                    cell = Cell(row.num, col, El(local, prefix, p.CurrentByteIndex, attrs), bool(ref))
         elif d == 4:
-            cell = st["cell"]
             if cell is None:
                 return
-            el = open_el(local, prefix, _attrs(attrs))
             cell.nkids += 1
-            st["kid"] = el
+            local, prefix, _ = split(name)
             if local == "f":
-                cell.f = el
-            elif local == "v":
-                cell.v = el
-            elif local == "is":
-                cell.is_ = el
+                kid = cell.f = El(local, prefix, p.CurrentByteIndex, attrs)
+                if text:
+                    collect = kid.text = []
+            elif local == "v" or local == "is":
+                if text:
+                    kid = El(local, prefix, p.CurrentByteIndex, attrs)
+                    kid.text = []
+                    if local == "v":
+                        cell.v = kid
+                        collect = kid.text
+                    else:
+                        cell.is_ = kid
+                else:
+                    cell.v = True  # present; no span needed
             else:
-                cell.others.append(el)
-            if local in ("f", "v", "is"):
-                el.text = []
-                if local != "is":
-                    st["collect"] = el.text
-        elif st["kid"] is not None and st["kid"].local == "is":
+                kid = El(local, prefix, p.CurrentByteIndex, attrs)
+                cell.others.append(kid)
+        elif d == 2:
+            local, prefix, _ = split(name)
+            if local == "row":
+                r = attrs.get("r")
+                num = int(r) if r else last_row + 1
+                last_row = num
+                row = Row(num, El(local, prefix, p.CurrentByteIndex, attrs), bool(r))
+                visitor.row_start(row)
+        elif d > 4 and text and kid is not None and kid.local == "is":
+            local = split(name)[0]
             if local == "rPh":
-                st["in_rph"] += 1
-            elif local == "t" and not st["in_rph"]:
-                st["collect"] = st["kid"].text
+                in_rph += 1
+            elif local == "t" and not in_rph:
+                collect = kid.text
 
     def end(name):
-        st["depth"] -= 1
-        d = st["depth"]
-        local, _ = _split(name)
-        if d == 1:
-            if local == "dimension" and st["dim"] is not None:
-                _close(st["dim"], data, p)
-                visitor.dimension(st["dim"])
-            elif local == "sheetData" and st["sd"] is not None and (st["inside"] or st["sd"].empty):
-                _close(st["sd"], data, p)
-                st["inside"] = False
-                visitor.sheet_data_end(st["sd"])
+        nonlocal depth, inside, row, cell, kid, collect, in_rph
+        depth -= 1
+        d = depth
+        if not inside:
+            if d == 1 and dim is not None and dim.end is None and split(name)[0] == "dimension":
+                finish(dim, split(name)[2])
+                visitor.dimension(dim)
             return
-        if not st["inside"]:
-            return
-        if d == 2:
-            if local == "row" and st["row"] is not None:
-                _close(st["row"].el, data, p)
-                visitor.row_end(st["row"])
-                st["row"] = None
+        if d == 4:
+            if kid is not None:
+                finish(kid, split(name)[2])
+                if kid.text is not None:
+                    kid.text = "".join(kid.text)
+                kid = collect = None
         elif d == 3:
-            if local == "c" and st["cell"] is not None:
-                _close(st["cell"].el, data, p)
-                visitor.cell(st["cell"], st["row"])
-                st["cell"] = None
-        elif d == 4:
-            el = st["kid"]
-            if el is not None:
-                _close(el, data, p)
-                if el.text is not None:
-                    el.text = "".join(el.text)
-                st["kid"] = None
-                st["collect"] = None
-        elif local == "rPh":
-            st["in_rph"] -= 1
-        elif local == "t":
-            st["collect"] = None
+            if cell is not None:
+                finish(cell.el, split(name)[2])
+                visitor.cell(cell, row)
+                cell = None
+        elif d == 2:
+            if row is not None:
+                finish(row.el, split(name)[2])
+                visitor.row_end(row)
+                row = None
+        elif d == 1:
+            finish(sd, split(name)[2])
+            inside = False
+            visitor.sheet_data_end(sd)
+        elif text and kid is not None:
+            local = split(name)[0]
+            if local == "rPh":
+                in_rph -= 1
+            elif local == "t":
+                collect = None
 
-    def chars(text):
-        c = st["collect"]
-        if c is not None:
-            c.append(text)
+    def chars(t):
+        if collect is not None:
+            collect.append(t)
 
-    p.StartElementHandler, p.EndElementHandler, p.CharacterDataHandler = start, end, chars
+    p.StartElementHandler, p.EndElementHandler = start, end
+    if text:
+        p.CharacterDataHandler = chars
     _parse(p, data, what)
 
 
-def _close(el: El, data: bytes, p) -> None:
-    if not el.empty:
-        el.close = p.CurrentByteIndex
-        el.end = data.find(b">", el.close) + 1
+def _refuse_doctype(*_a):
+    raise _err("a DOCTYPE declaration in a workbook part (refused)")
+
+
+_COLS: dict = {}
 
 
 def _ref_col(ref: str) -> int:
-    n = 0
-    for ch in ref:
-        if ch == "$":
-            continue
-        if not ch.isalpha():
-            break
-        n = n * 26 + (ord(ch.upper()) - 64)
-    if n < 1:
-        raise _err(f"not a cell reference: {ref!r}")
+    letters = ref.rstrip("0123456789").lstrip("$").rstrip("$")
+    n = _COLS.get(letters)
+    if n is None:
+        n = 0
+        for ch in letters.upper():
+            if not "A" <= ch <= "Z":
+                raise _err(f"not a cell reference: {ref!r}")
+            n = n * 26 + (ord(ch) - 64)
+        if not 1 <= n <= 16384:
+            raise _err(f"not a cell reference: {ref!r}")
+        _COLS[letters] = n
     return n
 
 
