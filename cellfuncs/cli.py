@@ -81,8 +81,8 @@ def cmd_recalc(ns) -> int:
     check_output_path(ns.output, ns.book)
     sets = _parse_sets(ns.set)
     try:
+        check_output_kind(ns.book, ns.output)  # reads the package first: refusals come before the engine loads
         res, pkg = headless.recalc(ns.book, sets)
-        check_output_kind(pkg, ns.output)
         if ns.values:
             pkg.values_only()
         headless.write_with_cached_values(res, pkg, ns.output)

@@ -388,17 +388,26 @@ class Package:
             raise
 
 
-def check_output_kind(package: Package, out_path: str) -> None:
+def check_output_kind(package, out_path: str) -> None:
     """Refuse an output name whose extension does not match the workbook's content.
 
     A macro-enabled workbook (macro content type or a VBA project) is written as ``.xlsm``, any
     other as ``.xlsx`` (templates as ``.xltm`` / ``.xltx``); any other extension is refused.
+
+    Parameters
+    ----------
+    package : Package or str
+        The workbook, or its path (then it is read here, with every refusal of :class:`Package`).
+    out_path : str
+        The output file name.
 
     Raises
     ------
     BookError
         One line naming the extension to use.
     """
+    if not isinstance(package, Package):
+        package = Package(os.fspath(package))
     ext = os.path.splitext(out_path)[1].lower()
     if package.is_template:
         want = ".xltm" if package.has_macros else ".xltx"

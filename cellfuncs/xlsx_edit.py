@@ -143,7 +143,7 @@ def edit_cells(data: bytes, cells: dict, formula_cell: bool, is_error, what: str
         by_row.setdefault(r, {})[c] = v
     pending_rows = sorted(by_row)
     edits = []
-    state = {"p": "", "next": 0, "done_rows": set(), "inserted": False, "seen_sd": False}
+    state = {"p": "", "next": 0, "done_rows": set(), "order": None, "seen_sd": False}
 
     def new_row(r):
         p = state["p"]
@@ -170,35 +170,42 @@ def edit_cells(data: bytes, cells: dict, formula_cell: bool, is_error, what: str
             ins = rows_before(row.num)
             if ins:
                 edits.append((row.el.start, row.el.start, ins))
-            state["row_targets"] = by_row.get(row.num)
-            state["row_done"] = set()
+            targets = by_row.get(row.num)
+            if targets is None or row.num in state["done_rows"]:
+                state["order"] = None
+                return
+            state["targets"] = targets
+            state["order"] = sorted(targets)
+            state["ptr"] = 0
             state["row_ins"] = False
 
         def cell(self, cell, row):
-            targets = state["row_targets"]
-            if not targets or row.num in state["done_rows"]:
+            order = state["order"]
+            if order is None:
                 return
-            p = state["p"]
-            ins = [c for c in sorted(targets) if c < cell.col and c not in state["row_done"]]
-            if ins:
+            ptr, col, n = state["ptr"], cell.col, len(order)
+            if ptr < n and order[ptr] < col:
+                p, targets, start = state["p"], state["targets"], ptr
+                while ptr < n and order[ptr] < col:
+                    ptr += 1
                 edits.append((cell.el.start, cell.el.start, b"".join(
                     _cell_bytes(data, p, f"{col_text(c)}{row.num}", None, targets[c], formula_cell, is_error)
-                    for c in ins)))
-                state["row_done"].update(ins)
+                    for c in order[start:ptr])))
                 state["row_ins"] = True
-            if cell.col in targets:
+            if ptr < n and order[ptr] == col:
                 edits.append((cell.el.start, cell.el.end, _cell_bytes(
-                    data, p, f"{col_text(cell.col)}{row.num}", cell, targets[cell.col], formula_cell, is_error)))
-                state["row_done"].add(cell.col)
+                    data, state["p"], f"{col_text(col)}{row.num}", cell, state["targets"][col], formula_cell,
+                    is_error)))
+                ptr += 1
+            state["ptr"] = ptr
 
         def row_end(self, row):
-            targets = state["row_targets"]
-            if not targets or row.num in state["done_rows"]:
+            order = state["order"]
+            if order is None:
                 return
-            p = state["p"]
-            rest = [c for c in sorted(targets) if c not in state["row_done"]]
+            p, targets = state["p"], state["targets"]
             tail = b"".join(_cell_bytes(data, p, f"{col_text(c)}{row.num}", None, targets[c], formula_cell,
-                                        is_error) for c in rest)
+                                        is_error) for c in order[state["ptr"]:])
             if row.el.empty:
                 head = start_tag(row.el, drop=("spans",))
                 edits.append((row.el.start, row.el.end, head + tail + f"</{row.el.prefix}row>".encode()))
@@ -208,6 +215,7 @@ def edit_cells(data: bytes, cells: dict, formula_cell: bool, is_error, what: str
                 if tail or state["row_ins"]:
                     edits.append((row.el.start, opened(data, row.el), start_tag(row.el, drop=("spans",))))
             state["done_rows"].add(row.num)
+            state["order"] = None
 
         def sheet_data_end(self, el):
             ins = rows_before(float("inf"))
