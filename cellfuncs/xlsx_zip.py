@@ -150,16 +150,30 @@ def is_xml_part(name: str, data: bytes) -> bool:
     return head.startswith(b"<")
 
 
-def xml_text_bytes(data: bytes) -> bytes:
-    """The part as UTF-8 bytes (UTF-16 parts, marked by their byte-order mark, are transcoded)."""
+def _utf16(data: bytes):
+    """The codec of a UTF-16 part (with or without a byte-order mark), else None."""
     if data[:2] in (b"\xff\xfe", b"\xfe\xff"):
-        text = data.decode("utf-16")
-        if text.startswith("<?xml"):
-            end = text.find("?>")
-            decl = text[:end].replace("UTF-16", "UTF-8").replace("utf-16", "UTF-8")
-            text = decl + text[end:]
-        return text.encode("utf-8")
-    return data
+        return "utf-16"
+    if data[:2] == b"<\x00":
+        return "utf-16-le"
+    if data[:2] == b"\x00<":
+        return "utf-16-be"
+    return None
+
+
+def xml_text_bytes(data: bytes) -> bytes:
+    """The part as UTF-8 bytes (UTF-16 parts are transcoded and their declaration says so)."""
+    codec = _utf16(data)
+    if codec is None:
+        return data
+    text = data.decode(codec)
+    if text.startswith("\ufeff"):
+        text = text[1:]
+    if text.startswith("<?xml"):
+        end = text.find("?>")
+        decl = text[:end].replace("UTF-16", "UTF-8").replace("utf-16", "UTF-8")
+        text = decl + text[end:]
+    return text.encode("utf-8")
 
 
 def check_no_doctype(parts: dict, label: str) -> None:
@@ -167,7 +181,7 @@ def check_no_doctype(parts: dict, label: str) -> None:
     for name, data in parts.items():
         if not is_xml_part(name, data):
             continue
-        if data[:2] in (b"\xff\xfe", b"\xfe\xff"):
+        if _utf16(data):
             data = xml_text_bytes(data)
         pos = data.find(b"<!")
         while pos >= 0:

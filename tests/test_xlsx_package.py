@@ -164,6 +164,31 @@ def test_no_r_positions_follow_order(tmp_path):
         [None, 8, None, None, None]]
 
 
+def test_utf16_sheet_part(tmp_path, capsys, plain):
+    """XML 1.0, 4.3.3: a part may be UTF-16 with a byte-order mark; it is read and written."""
+    with zipfile.ZipFile(plain) as zin, zipfile.ZipFile(tmp_path / "u.xlsx", "w") as zout:
+        for info in zin.infolist():
+            data = zin.read(info.filename)
+            if info.filename == SHEET:
+                text = data.decode("utf-8")
+                text = text if text.startswith("<?xml") else '<?xml version="1.0" encoding="UTF-16"?>' + text
+                data = text.replace('encoding="UTF-8"', 'encoding="UTF-16"').encode("utf-16")
+            zout.writestr(info, data)
+    rc, err = _recalc(capsys, tmp_path / "u.xlsx", "-o", tmp_path / "o.xlsx")
+    assert rc == 0, err
+    values = openpyxl.load_workbook(tmp_path / "o.xlsx", data_only=True)["Calc"]
+    assert values["B1"].value == 20 and values["D3"].value == 25
+    bad = tmp_path / "bad.xlsx"
+    with zipfile.ZipFile(plain) as zin, zipfile.ZipFile(bad, "w") as zout:
+        for info in zin.infolist():
+            data = zin.read(info.filename)
+            if info.filename == "xl/styles.xml":
+                data = _put_doctype(data.decode("utf-8")).encode("utf-16-le")
+            zout.writestr(info, data)
+    rc, err = _recalc(capsys, bad, "-o", tmp_path / "o2.xlsx")
+    assert rc == 2 and "DOCTYPE" in _one_line(err)
+
+
 def _put_doctype(xml):
     return xml.replace("?>", '?><!DOCTYPE x [<!ENTITY big "bigbigbig">]>', 1) if xml.startswith("<?xml") \
         else '<!DOCTYPE x [<!ENTITY big "b">]>' + xml
