@@ -8,6 +8,7 @@ from __future__ import annotations
 
 from cellfuncs.xlsx_formula import shift_formula
 from cellfuncs.xlsx_sheet import _Visitor, _esc, _num_text, apply_edits, col_text, start_tag, walk
+from cellfuncs.xlsx_sheet import _GT, _parse, _parser, _ref_col, _split, tag_end
 from cellfuncs.xlsx_sheet import open_end as opened
 
 __all__ = ["extent", "map_formulas", "drop_empty", "edit_cells", "expand_shared", "to_values",
@@ -51,53 +52,127 @@ def read_cells(data: bytes) -> dict:
 
 
 def map_formulas(data: bytes, fn) -> bytes:
-    """Apply ``fn(text) -> text`` to the text of every formula element that has text."""
+    """Apply ``fn(text) -> text`` to the text of every formula element that has text.
+
+    A lean pass of its own (only the ``f`` elements of cells are followed), as the engine's private
+    copy maps every formula of the workbook.
+    """
     edits = []
+    p = _parser()
+    depth = 0
+    inside = False
+    f_open = f_close = None
+    text: list = []
+    startswith = data.startswith
 
-    class V(_Visitor):
-        def cell(self, cell, row):
-            f = cell.f
-            if f is not None and not f.empty:
-                edits.append((opened(data, f), f.close, _esc(fn(f.text))))
+    def start(name, attrs):
+        nonlocal depth, inside, f_open, f_close
+        d = depth
+        depth = d + 1
+        if d == 4 and inside and (name == "f" or name.endswith(":f")):
+            i = p.CurrentByteIndex
+            f_open = tag_end(data, i) if attrs else data.find(b">", i) + 1
+            f_close = ("</" + name).encode("utf-8")
+            text.clear()
+        elif d == 1 and not inside and _split(name)[0] == "sheetData":
+            inside = True
 
-    walk(data, V())
+    def end(name):
+        nonlocal depth, inside, f_open
+        depth -= 1
+        if f_open is not None and depth == 4:
+            i = p.CurrentByteIndex
+            n = len(f_close)
+            if startswith(f_close, i) and data[i + n:i + n + 1] in _GT:  # not an empty <f/>
+                edits.append((f_open, i, _esc(fn("".join(text)))))
+            f_open = None
+        elif depth == 1 and inside:
+            inside = False
+
+    def chars(t):
+        if f_open is not None:
+            text.append(t)
+
+    p.StartElementHandler, p.EndElementHandler, p.CharacterDataHandler = start, end, chars
+    _parse(p, data, "sheet")
     return apply_edits(data, edits)
-
-
-def _add_r(data, el, ref):
-    pos = el.start + 1 + len(el.prefix) + len(el.local)
-    return (pos, pos, f' r="{ref}"'.encode())
 
 
 def drop_empty(data: bytes) -> tuple:
     """Remove ``dimension`` and cells with no content; give every row and cell an explicit ``r``.
 
-    Returns (new bytes, (last row, last column) of the cells kept).
+    Returns (new bytes, (last row, last column) of the cells kept).  A lean pass of its own (no
+    cell objects), as it runs on every sheet of the engine's private copy.
     """
     edits = []
-    kept = [0, 0]
+    p = _parser()
+    depth = 0
+    inside = False
+    row_num = last_col = max_row = max_col = 0
+    cell_start = dim_start = None
+    col = kids = 0
+    explicit = False
+    startswith, find = data.startswith, data.find
 
-    class V(_Visitor):
-        def dimension(self, el):
-            edits.append((el.start, el.end, b""))
+    def element_end(name, i):
+        close = ("</" + name).encode("utf-8")
+        if startswith(close, i) and data[i + len(close):i + len(close) + 1] in _GT:
+            return find(b">", i) + 1
+        return i
 
-        def row_start(self, row):
-            if not row.explicit:
-                edits.append(_add_r(data, row.el, str(row.num)))
+    def start(name, attrs):
+        nonlocal depth, inside, row_num, last_col, cell_start, dim_start, col, kids, explicit
+        d = depth
+        depth = d + 1
+        if not inside:
+            if d == 1:
+                local = _split(name)[0]
+                if local == "sheetData":
+                    inside = True
+                elif local == "dimension":
+                    dim_start = p.CurrentByteIndex
+            return
+        if d == 3:
+            ref = attrs.get("r")
+            col = _ref_col(ref) if ref else last_col + 1
+            last_col, explicit, kids = col, bool(ref), 0
+            cell_start = p.CurrentByteIndex
+        elif d == 4:
+            kids += 1
+        elif d == 2:
+            r = attrs.get("r")
+            row_num = int(r) if r else row_num + 1
+            last_col = 0
+            if not r:
+                pos = p.CurrentByteIndex + 1 + len(name)
+                edits.append((pos, pos, f' r="{row_num}"'.encode()))
 
-        def cell(self, cell, row):
-            if cell.nkids == 0:
-                edits.append((cell.el.start, cell.el.end, b""))
-                return
-            if not cell.explicit:
-                edits.append(_add_r(data, cell.el, f"{col_text(cell.col)}{cell.row}"))
-            if cell.row > kept[0]:
-                kept[0] = cell.row
-            if cell.col > kept[1]:
-                kept[1] = cell.col
+    def end(name):
+        nonlocal depth, inside, cell_start, dim_start, max_row, max_col
+        depth -= 1
+        d = depth
+        if d == 3 and cell_start is not None:
+            if kids == 0:
+                edits.append((cell_start, element_end(name, p.CurrentByteIndex), b""))
+            else:
+                if not explicit:
+                    pos = cell_start + 1 + len(name)
+                    edits.append((pos, pos, f' r="{col_text(col)}{row_num}"'.encode()))
+                if row_num > max_row:
+                    max_row = row_num
+                if col > max_col:
+                    max_col = col
+            cell_start = None
+        elif d == 1:
+            if inside:
+                inside = False
+            elif dim_start is not None:
+                edits.append((dim_start, element_end(name, p.CurrentByteIndex), b""))
+                dim_start = None
 
-    walk(data, V(), text=False)
-    return apply_edits(data, edits), (kept[0], kept[1])
+    p.StartElementHandler, p.EndElementHandler = start, end
+    _parse(p, data, "sheet")
+    return apply_edits(data, edits), (max_row, max_col)
 
 
 def _value_xml(p: str, value, formula_cell: bool, is_error) -> tuple:
