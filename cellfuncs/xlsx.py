@@ -30,7 +30,7 @@ import zipfile
 from urllib.parse import unquote
 
 from cellfuncs import xlsx_edit, xlsx_zip
-from cellfuncs.xlsx_sheet import find_elements, open_end, start_tag
+from cellfuncs.xlsx_sheet import find_elements, open_end, parse_only, start_tag
 
 __all__ = ["BookError", "ErrorText", "Package", "check_output_kind", "col_index", "col_letters", "split_ref"]
 
@@ -157,6 +157,8 @@ class Package:
                            or any(n.lower().endswith("vbaproject.bin") for n in self.parts))
         self.is_template = ".template." in ctype
         self._sheets, self._kinds = self._sheet_map()
+        for path in self._worksheets().values():  # well-formed, checked at C speed before any edit
+            self._read(path, lambda d: parse_only(d, path))
 
     # -- structure -------------------------------------------------------------------
     def _xml(self, part: str) -> bytes:
@@ -166,7 +168,7 @@ class Package:
         rels = _rels_path(part)
         if rels not in self.parts:
             return []
-        return find_elements(self._xml(rels), {"Relationship"}, rels)
+        return self._read(rels, lambda d: find_elements(d, {"Relationship"}, rels))
 
     def _main_part(self) -> str:
         for el in self._relationships(""):
@@ -181,7 +183,7 @@ class Package:
             return ""
         default = ""
         ext = part.rsplit(".", 1)[-1].lower()
-        for el in find_elements(self._xml(ct), {"Override", "Default"}, ct):
+        for el in self._read(ct, lambda d: find_elements(d, {"Override", "Default"}, ct)):
             if el.local == "Override" and el.attrs.get("PartName", "").lstrip("/").lower() == part.lower():
                 return el.attrs.get("ContentType", "")
             if el.local == "Default" and el.attrs.get("Extension", "").lower() == ext:
@@ -196,7 +198,7 @@ class Package:
                 continue
             targets[el.attrs.get("Id")] = (_resolve(wb, el.attrs.get("Target", "")), el.attrs.get("Type", ""))
         out, kinds = {}, {}
-        for el in find_elements(self._xml(wb), {"sheet"}, wb):
+        for el in self._read(wb, lambda d: find_elements(d, {"sheet"}, wb)):
             rid = el.attrs.get("r:id") or next((v for k, v in el.attrs.items() if k.endswith(":id")), None)
             target = targets.get(rid)
             if not target or "name" not in el.attrs:
@@ -228,15 +230,24 @@ class Package:
             raise BookError(f"{self.label}: sheet {name!r} has no part {path} in the package")
         return path
 
+    def _read(self, path: str, fn):
+        """``fn(part bytes as UTF-8)``; an XML error names the workbook and the part."""
+        try:
+            return fn(self._xml(path))
+        except BookError as exc:
+            if getattr(exc, "xml_error", False):
+                raise BookError(f"{self.label}: part {path}: {exc}") from None
+            raise
+
     def _rewrite(self, path: str, fn) -> None:
-        self.parts[path] = fn(self._xml(path))
+        self.parts[path] = self._read(path, fn)
 
     # -- reading ---------------------------------------------------------------------
     @_one_line_memory
     def cells(self, sheet: str) -> dict:
         """{"A1": (formula text or None, cell type, value text or None)} of the cells present."""
-        data = self._xml(self._sheet_part(sheet))
-        return {f"{col_letters(c)}{r}": v for (r, c), v in xlsx_edit.read_cells(data).items()}
+        cells = self._read(self._sheet_part(sheet), xlsx_edit.read_cells)
+        return {f"{col_letters(c)}{r}": v for (r, c), v in cells.items()}
 
     @_one_line_memory
     def used_extent(self) -> dict:
@@ -247,7 +258,7 @@ class Package:
             if known is not None and known[0] is self.parts[path]:
                 out[name] = known[1]
             else:
-                out[name] = xlsx_edit.extent(self._xml(path))
+                out[name] = self._read(path, xlsx_edit.extent)
         return out
 
     # -- cell edits ------------------------------------------------------------------
@@ -294,7 +305,7 @@ class Package:
         row and cell is given an explicit ``r`` on the way (readers that need it are served).
         """
         for path in self._worksheets().values():
-            data, extent = xlsx_edit.drop_empty(self._xml(path))
+            data, extent = self._read(path, xlsx_edit.drop_empty)
             self.parts[path] = data
             self._extent[path] = (data, extent)
 

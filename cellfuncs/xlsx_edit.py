@@ -41,9 +41,7 @@ def read_cells(data: bytes) -> dict:
 
     class V(_Visitor):
         def cell(self, cell, row):
-            f = None
-            if cell.f is not None:
-                f = cell.f.text if cell.f.text else ("" if cell.f.empty else cell.f.text)
+            f = cell.f.text if cell.f is not None else None
             v = cell.v.text if cell.v is not None else (cell.is_.text if cell.is_ is not None else None)
             out[(cell.row, cell.col)] = (f, cell.el.attrs.get("t", "n"), v)
 

@@ -92,7 +92,14 @@ def _parse(p, data: bytes, what: str):
     try:
         p.Parse(data, True)
     except expat.ExpatError as exc:
-        raise _err(f"{what}: not well-formed XML ({expat.ErrorString(exc.code)}, line {exc.lineno})") from None
+        err = _err(f"not well-formed XML ({expat.ErrorString(exc.code)}, line {exc.lineno})")
+        err.xml_error = True
+        raise err from None
+
+
+def parse_only(data: bytes, what: str = "part") -> None:
+    """Check that the part is well-formed XML without a DOCTYPE (no Python handler per element)."""
+    _parse(_parser(), data, what)
 
 
 def find_elements(data: bytes, locals_: set, what: str = "part") -> list:

@@ -189,6 +189,12 @@ def test_utf16_sheet_part(tmp_path, capsys, plain):
     assert rc == 2 and "DOCTYPE" in _one_line(err)
 
 
+def test_malformed_sheet_is_one_line(tmp_path, capsys, plain):
+    src = _rewrite(plain, tmp_path / "m.xlsx", {SHEET: lambda x: x.replace("</sheetData>", "")})
+    rc, err = _recalc(capsys, src, "-o", tmp_path / "o.xlsx")
+    assert rc == 2 and f"part {SHEET}: not well-formed XML" in _one_line(err)
+
+
 def _put_doctype(xml):
     return xml.replace("?>", '?><!DOCTYPE x [<!ENTITY big "bigbigbig">]>', 1) if xml.startswith("<?xml") \
         else '<!DOCTYPE x [<!ENTITY big "b">]>' + xml
