@@ -1,10 +1,13 @@
 """Reading and editing a worksheet part's ``sheetData`` with an XML parser, in place.
 
-The part is parsed once per operation with expat (namespace aware, so ``x:``-prefixed SpreadsheetML
-reads like the default namespace).  Each element of interest is located by its byte span in the
-part; an edit replaces only the spans it changes, so everything else in the part (other elements,
-attribute quoting, whitespace, namespace declarations) stays byte for byte as it was.  New elements
-take the prefix the part uses for SpreadsheetML.
+The part is parsed once per operation with expat; elements are matched by their local name at
+their depth (worksheet, sheetData, row, c, child of c), so ``x:``-prefixed SpreadsheetML reads like
+the default namespace.  Each element of interest is located by its byte span in the part (expat's
+byte index of each start and end event); an edit replaces only the spans it changes, so everything
+else in the part (other elements and cells, attribute quoting, whitespace, namespace declarations)
+stays byte for byte as it was.  A rewritten cell's start tag is rebuilt from its parsed attributes
+(double quotes); new elements take the prefix the part uses for ``sheetData``.  A DOCTYPE or an
+entity declaration stops the parse with a refusal.
 
 Positions follow the format's rules: a ``row`` without ``r`` is the row after the previous one (the
 first is row 1), a ``c`` without ``r`` the column after the previous cell of its row (the first is
@@ -22,9 +25,6 @@ from __future__ import annotations
 import xml.parsers.expat as expat
 from xml.sax.saxutils import escape
 
-_WS = b" \t\r\n"
-
-
 def _err(msg):
     from cellfuncs.xlsx import BookError
 
@@ -34,7 +34,7 @@ def _err(msg):
 class El:
     """An element's byte span: ``start`` ('<'), ``close`` (its end tag, or ``end`` when empty) and
     ``end``; :func:`open_end` gives the end of its start tag.  ``attrs`` as expat reports them
-    (qualified names as "uri local prefix"), ``prefix`` like ``"x:"``."""
+    (by the qualified names written in the part), ``prefix`` like ``"x:"``."""
 
     __slots__ = ("local", "prefix", "start", "_open_end", "close", "end", "attrs", "empty", "text")
 
