@@ -502,6 +502,8 @@ def test_values_only_copy(tmp_path, capsys):
     got = {c.coordinate: c.value for c in cells if c.value is not None}
     assert got["B3"] == 75 and got["C1"] == "duty 100" and got["C2"] is True and got["C3"] == "#DIV/0!"
     assert got["C4"] == pytest.approx(LMTD, rel=1e-12)
+    data_only = openpyxl.load_workbook(out, data_only=True)["Calc"]
+    assert {c.coordinate: c.value for row in data_only.iter_rows() for c in row if c.value is not None} == got
     assert book["Calc"]["B1"].font.bold
     assert book["Calc"].data_validations.dataValidation
     assert "duties" in book.defined_names
