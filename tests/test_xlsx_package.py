@@ -527,3 +527,70 @@ def test_unchanged_parts_byte_identical(tmp_path, capsys, plain):
         same = [n for n in a.namelist() if a.read(n) == b.read(n)]
         assert set(a.namelist()) - set(same) <= {SHEET, "xl/workbook.xml"}
     assert os.path.getsize(out) > 0
+
+
+# -- round trip over random sheets in every shape ------------------------------------------------
+
+def _drop_implied_r(xml):
+    """Remove r where the format lets the position follow from the order (row after row, cell after
+    cell), keeping it after a gap."""
+    state = {"row": 0, "col": 0}
+
+    def sub(m):
+        tag, rest, letters, digits = m.group(1), m.group(2), m.group(3), int(m.group(4))
+        if tag == "row":
+            implied = digits == state["row"] + 1
+            state["row"], state["col"] = digits, 0
+        else:
+            col = 0
+            for ch in letters:
+                col = col * 26 + ord(ch) - 64
+            implied = col == state["col"] + 1
+            state["col"] = col
+        return f"<{tag}{rest}" if implied else m.group(0)
+
+    return re.sub(r'<(row|c)\b([^>]*?) r="([A-Z]*)(\d+)"', sub, xml)
+
+
+ROUND_SHAPES = {
+    "plain": lambda x: x,
+    "no_r": _drop_implied_r,
+    "prefix": _prefixed,
+    "single_quotes": _single_quotes,
+    "all": lambda x: _single_quotes(_prefixed(_drop_implied_r(x))),
+}
+_cells = st.tuples(st.integers(1, 12), st.integers(1, 8))
+_values = st.one_of(st.integers(-10**6, 10**6), st.floats(-1e9, 1e9, allow_nan=False).map(lambda v: round(v, 6)),
+                    st.booleans(), st.text(alphabet="ab xy&<>\"'", min_size=1, max_size=6).filter(str.strip))
+
+
+@pytest.fixture(scope="module")
+def round_dir(tmp_path_factory):
+    return tmp_path_factory.mktemp("round")
+
+
+@settings(max_examples=40, deadline=None)
+@given(initial=st.dictionaries(_cells, _values, max_size=25), edits=st.dictionaries(_cells, _values, max_size=10),
+       shape=st.sampled_from(sorted(ROUND_SHAPES)))
+def test_set_values_round_trip(round_dir, initial, edits, shape):
+    """Whatever the shape, what is written is what a reader finds, and nothing else moves."""
+    from cellfuncs.xlsx import col_letters
+
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws.title = "S"
+    for (r, c), v in initial.items():
+        ws.cell(r, c, v)
+    src0, src, out = round_dir / "r0.xlsx", round_dir / "r.xlsx", round_dir / "o.xlsx"
+    wb.save(src0)
+    _rewrite(src0, src, {SHEET: ROUND_SHAPES[shape]})
+    pkg = Package(str(src))
+    assert set(pkg.cells("S")) == {f"{col_letters(c)}{r}" for (r, c) in initial}
+    pkg.set_values({("S", f"{col_letters(c)}{r}"): v for (r, c), v in edits.items()})
+    pkg.save(str(out))
+    back = openpyxl.load_workbook(out)["S"]
+    got = {(c.row, c.column): c.value for row in back.iter_rows() for c in row if c.value is not None}
+    want = {**initial, **edits}
+    assert got.keys() == want.keys()
+    for key, v in want.items():
+        assert got[key] == (pytest.approx(v, rel=1e-15) if isinstance(v, float) else v), key
