@@ -74,14 +74,17 @@ def _json_value(v):
 
 def cmd_recalc(ns) -> int:
     from cellfuncs import headless
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.xlsx import BookError, check_output_kind
 
     if not ns.book.lower().endswith((".xlsx", ".xlsm")) and os.path.isfile(ns.book):
         raise UsageError(f"{ns.book}: not an .xlsx workbook")
     check_output_path(ns.output, ns.book)
     sets = _parse_sets(ns.set)
     try:
+        check_output_kind(ns.book, ns.output)  # reads the package first: refusals come before the engine loads
         res, pkg = headless.recalc(ns.book, sets)
+        if ns.values:
+            pkg.values_only()
         headless.write_with_cached_values(res, pkg, ns.output)
     except BookError as exc:
         raise UsageError(str(exc)) from None
@@ -214,6 +217,8 @@ def build_parser() -> argparse.ArgumentParser:
     r.add_argument("--set", action="append", metavar="REF=VALUE",
                    help="override an input before computing (Sheet!A1 or a defined name)")
     r.add_argument("--json", action="store_true", help="print every formula cell's value as JSON")
+    r.add_argument("--values", action="store_true",
+                   help="write a values-only copy: every formula replaced by its value (charts, styles kept)")
     r.set_defaults(func=cmd_recalc)
 
     f = sub.add_parser("functions", help="list the cell functions, or show one")
