@@ -47,13 +47,16 @@ def test_cases_values_and_errors(book, tmp_path, workers):
     p = _run("cases", str(book), str(cases), "-o", str(out), "--workers", workers)
     assert p.returncode == 0, p.stderr
     rows = list(csv.DictReader(open(out)))
-    assert list(rows[0]) == ["t_hot_in", "t_cold_out", "flow", "out_double", "out_lmtd"]
+    # inputs in the order of the header, then the outputs in the workbook's order, each with its reason
+    assert list(rows[0]) == ["t_hot_in", "t_cold_out", "flow", "out_lmtd", "out_lmtd error", "out_double",
+                             "out_double error"]
     assert float(rows[0]["out_lmtd"]) == pytest.approx(ht.LMTD(100, 60, 30, 40.2), rel=1e-9)
     # parallel flow: ht.LMTD(100, 60, 30, 40.2, counterflow=False)
     assert float(rows[1]["out_lmtd"]) == pytest.approx(ht.LMTD(100, 60, 30, 40.2, counterflow=False), rel=1e-9)
     assert float(rows[2]["out_double"]) == pytest.approx(2 * ht.LMTD(120, 60, 30, 50), rel=1e-9)
     assert rows[3]["out_lmtd"] == "#NUM!"        # 50 °C hot inlet is below the cold outlet: a cross
-    assert "case 4, out_lmtd: #NUM!" in p.stderr
+    assert "case 4 (line 5), out_lmtd: #NUM!" in p.stderr
+    assert "t_hot_in 50" in rows[3]["out_lmtd error"]  # the reason names the input at fault
 
 
 def test_numbers_reach_an_input_cell_that_is_blank_now(tmp_path):

@@ -1,0 +1,430 @@
+"""The formula engine (``formualizer``) and everything specific to it, workarounds included.
+
+The rest of :mod:`cellfuncs.headless` knows nothing of the engine's types: it
+hands this module the parts of a package and gets plain values back
+(float, str, bool, None, :class:`~cellfuncs.xlsx.ErrorText`).
+
+Catalogue functions are registered on each engine workbook with
+``register_function(NAME, callback)``; the callback receives the evaluated
+arguments as Python values (float, str, bool, ``None`` for a blank cell, a list
+of rows for a range, a dict ``{"type": "Error", "kind": ...}`` for an error) and
+returns a Python value, a list of rows, or an engine error value.
+
+Workarounds for what the engine does not do by itself (all here):
+
+* an omitted argument ``F(1,,3)`` would reach our functions as 0: the formula
+  text is rewritten (:mod:`~cellfuncs.headless.formula_text`) so it arrives as
+  ``""`` = "use the default";
+* the engine's error values carry no text we can read back: each catalogue
+  call gets a tag argument and the callback files the message under it;
+* tables (for structured references) are not read from the file: they are
+  added from the table parts;
+* a legacy array formula whose other cells hold cached values spills into
+  them (``#SPILL!``): in the private copy the other cells are left out and the
+  formula is wrapped in ``TAKE(..., rows, columns)`` so a result larger than the
+  range shows its top-left part (as Excel does);
+* what-if data tables and 3-D references are not computed: those cells enter
+  the private copy as their cached values and are reported as not computed.
+"""
+
+from __future__ import annotations
+
+import io
+import math
+import zipfile
+from xml.sax.saxutils import escape
+
+from cellfuncs.errors import CellInputError
+from cellfuncs.xlsx import ErrorText, col_letters
+
+from .formula_text import TAG, rewrite
+
+__all__ = ["KIND_OF_CODE", "CODE_OF_KIND", "make_callback", "engine_error", "is_engine_error",
+           "engine_error_message", "Model", "INTERNAL_ERRORS"]
+
+CODE_OF_KIND = {"Null": "#NULL!", "Div": "#DIV/0!", "Value": "#VALUE!", "Ref": "#REF!", "Name": "#NAME?",
+                "Num": "#NUM!", "Na": "#N/A", "Spill": "#SPILL!", "Calc": "#CALC!", "NImpl": "#N/A",
+                "Circ": "#NUM!", "Cancelled": "#N/A", "Error": "#VALUE!"}
+KIND_OF_CODE = {"#NULL!": "Null", "#DIV/0!": "Div", "#VALUE!": "Value", "#REF!": "Ref", "#NAME?": "Name",
+                "#NUM!": "Num", "#N/A": "Na", "#SPILL!": "Spill", "#CALC!": "Calc"}
+#: error kinds that mean "the engine could not compute this", not a result
+LIMITATION_KINDS = {"NImpl": "a function or reference form the engine does not implement",
+                    "Circ": "a circular reference (iterative calculation is off in this workbook)",
+                    "Cancelled": "the calculation was stopped",
+                    "Name": "a name or function the engine does not know"}
+#: messages of unexpected exceptions seen in registered functions (tests fail on these)
+INTERNAL_ERRORS: list = []
+
+_FZ = {}
+
+
+def fz():
+    if "mod" not in _FZ:
+        import formualizer
+
+        _FZ["mod"] = formualizer
+    return _FZ["mod"]
+
+
+def engine_error(code: str, message: str = ""):
+    """An engine error value for an Excel error code (``"#NUM!"``)."""
+    return fz().LiteralValue.error(KIND_OF_CODE.get(code, "Value"), message or None)
+
+
+def is_engine_error(v) -> bool:
+    if isinstance(v, dict):
+        return v.get("type") == "Error"
+    LV = fz().LiteralValue
+    return isinstance(v, LV) and bool(_prop(v, "is_error"))
+
+
+def engine_error_message(v) -> str:
+    if isinstance(v, dict):
+        return v.get("message") or ""
+    try:
+        return _prop(v, "error_message") or ""
+    except AttributeError:
+        return ""
+
+
+def _prop(obj, name):
+    v = getattr(obj, name)
+    return v() if callable(v) else v
+
+
+def _code(v) -> str:
+    if isinstance(v, dict):
+        return CODE_OF_KIND.get(str(v.get("kind")), "#VALUE!")
+    kind = v.error_kind
+    kind = kind() if callable(kind) else kind
+    return CODE_OF_KIND.get(str(kind), "#VALUE!")
+
+
+class _PassThrough(Exception):
+    def __init__(self, err):
+        self.err = err
+
+
+def _raw(v):
+    """An engine argument -> the plain value the shared coercion expects."""
+    if isinstance(v, dict) and v.get("type") == "Error":
+        raise _PassThrough(v)
+    if isinstance(v, list):
+        rows = v if (v and isinstance(v[0], list)) else [v]
+        out = []
+        for row in rows:
+            cells = []
+            for c in row:
+                if isinstance(c, dict) and c.get("type") == "Error":
+                    raise _PassThrough(c)
+                cells.append(c)
+            out.append(cells)
+        if len(out) == 1 and len(out[0]) == 1:
+            return out[0][0]
+        return out
+    return v
+
+
+def make_callback(entry, messages: dict | None = None):
+    """The engine callback for one catalogue entry.
+
+    A first argument starting with the tag character names the calling cell; a
+    :class:`~cellfuncs.errors.CellInputError` becomes an engine error value and its
+    one-line message is filed in ``messages`` under that tag.  Nothing ever raises
+    out of the callback.
+    """
+    from cellfuncs.adapt import call as adapt_call
+
+    def cell_function(*args):
+        tag = None
+        if args and isinstance(args[0], str) and args[0].startswith(TAG):
+            tag, args = args[0], args[1:]
+        try:
+            raw = tuple(_raw(a) for a in args)
+        except _PassThrough as p:
+            return engine_error(_code(p.err))
+        try:
+            res = adapt_call(entry, raw)
+        except CellInputError as exc:
+            if tag is not None and messages is not None:
+                messages.setdefault(tag, f"{exc.excel_error} {exc.message}")
+            return engine_error(exc.excel_error, exc.message)
+        except Exception as exc:  # noqa: BLE001 - never raise into the engine
+            text = " ".join(f"{type(exc).__name__}: {exc}".split())[:200]
+            INTERNAL_ERRORS.append(f"{entry.name}: {text}")
+            if tag is not None and messages is not None:
+                messages.setdefault(tag, f"#VALUE! internal error: {text}")
+            return engine_error("#VALUE!", f"internal error: {text}")
+        if isinstance(res, list):
+            return [list(r) if isinstance(r, (list, tuple)) else [r] for r in res]
+        if isinstance(res, float) and not math.isfinite(res):
+            return engine_error("#NUM!", "result is not a finite number")
+        return res
+
+    cell_function.__name__ = entry.name
+    cell_function.__doc__ = entry.description
+    return cell_function
+
+
+def plain(v):
+    """An engine result -> float, str, bool or ErrorText (None for an empty cell)."""
+    if v is None:
+        return None
+    if isinstance(v, dict) and v.get("type") == "Error":
+        et = ErrorText(CODE_OF_KIND.get(str(v.get("kind")), "#VALUE!"))
+        et.kind = str(v.get("kind"))
+        return et
+    if isinstance(v, bool):
+        return v
+    if isinstance(v, (int, float)):
+        f = float(v)
+        if not math.isfinite(f):
+            et = ErrorText("#NUM!")
+            et.kind = "Num"
+            return et
+        return f
+    if isinstance(v, list):
+        return plain(v[0][0] if v and isinstance(v[0], list) and v[0] else (v[0] if v else None))
+    if hasattr(v, "isoformat"):  # a date or time: its serial number is what the cell holds
+        import datetime as dt
+
+        base = dt.datetime(1899, 12, 30)
+        if isinstance(v, dt.datetime):
+            return (v - base).total_seconds() / 86400
+        if isinstance(v, dt.date):
+            return float((v - base.date()).days)
+        return (v.hour * 3600 + v.minute * 60 + v.second) / 86400
+    return str(v)
+
+
+# ---------------------------------------------------------------------------------------------
+# the private copy
+
+
+def _value_xml(ref: str, v) -> str:
+    if v is None:
+        return ""
+    if isinstance(v, ErrorText):
+        return f'<c r="{ref}" t="e"><v>{escape(str(v))}</v></c>'
+    if isinstance(v, bool):
+        return f'<c r="{ref}" t="b"><v>{int(v)}</v></c>'
+    if isinstance(v, (int, float)):
+        return f'<c r="{ref}"><v>{float(v)!r}</v></c>'
+    return f'<c r="{ref}" t="inlineStr"><is><t xml:space="preserve">{escape(str(v))}</t></is></c>'
+
+
+def _in(rect, r, c):
+    return rect[0] <= r <= rect[2] and rect[1] <= c <= rect[3]
+
+
+def _rect(ref: str):
+    from .book import parse_ref
+
+    a, _, b = (ref or "").replace("$", "").partition(":")
+    p1, p2 = parse_ref(a) if a else None, parse_ref(b or a) if a else None
+    if p1 is None or p2 is None:
+        return None
+    return (min(p1[0], p2[0]), min(p1[1], p2[1]), max(p1[0], p2[0]), max(p1[1], p2[1]))
+
+
+class Model:
+    """A workbook loaded in the engine with our functions registered.
+
+    Parameters
+    ----------
+    parts : dict
+        The package parts ``{name: bytes}`` (the input, unchanged).
+    book : BookData
+        What :func:`cellfuncs.headless.book.read_book` found in it.
+    catalogue_names : frozenset
+        Upper-case names of the catalogue functions.
+    sets : dict
+        ``{(sheet, row, col): value}`` applied to the private copy.
+    """
+
+    def __init__(self, parts, book, catalogue_names, sets=None):
+        self.book = book
+        self.messages: dict = {}
+        self.formula_cells = []      # [(sheet, row, col)] cells the engine computes
+        self.tags = {}               # tag -> (sheet, row, col)
+        self.gaps = {}               # (sheet, row, col) -> reason (not computed; cached value kept)
+        self.arrays = {}             # (sheet, row, col) -> (anchor row, anchor col) inside a legacy array
+        self.array_shapes = {}       # (sheet, r, c) anchor -> (rows, cols)
+        self.referenced_cells = 0
+        self.functions = set()
+        sets = sets or {}
+        out_parts = {}
+        for sheet, path in book.sheets:
+            cells = book.cells.get(sheet)
+            if cells is None:
+                continue
+            ext_r, ext_c = book.extent.get(sheet, (0, 0))
+            covered = {}
+            for (r, c), cell in cells.items():
+                if cell.ftype in ("array", "dataTable") and cell.formula is not None or cell.ftype == "dataTable":
+                    rect = _rect(cell.fattrs.get("ref") or f"{col_letters(c)}{r}")
+                    if rect:
+                        for rr in range(rect[0], rect[2] + 1):
+                            for cc in range(rect[1], rect[3] + 1):
+                                covered[(rr, cc)] = (cell.ftype, (r, c), rect)
+            rows: dict = {}
+            for (r, c), cell in sorted(cells.items()):
+                ref = f"{col_letters(c)}{r}"
+                key = (sheet, r, c)
+                if (sheet, r, c) in sets:
+                    rows.setdefault(r, []).append(_value_xml(ref, sets[key]))
+                    continue
+                cov = covered.get((r, c))
+                if cov and cov[0] == "dataTable":
+                    self.gaps[key] = "a what-if data table (the engine does not compute them)"
+                    rows.setdefault(r, []).append(_value_xml(ref, cell.value))
+                    continue
+                if cov and cov[1] != (r, c):
+                    self.arrays[key] = cov[1]
+                    self.formula_cells.append(key)
+                    continue  # filled by the anchor's result
+                if cell.formula is None and cell.ftype is None:
+                    rows.setdefault(r, []).append(_value_xml(ref, cell.value))
+                    continue
+                tag = TAG + str(len(self.tags))
+                shared = cell.ftype == "shared"
+                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag)
+                if not shared:
+                    self.tags[tag] = key
+                self.functions |= rw.functions
+                for sh, r1, c1, r2, c2 in rw.ranges:
+                    target = book.sheet(sh) if sh else sheet
+                    er, ec = book.extent.get(target, (ext_r, ext_c)) if target else (0, 0)
+                    r2 = er if r2 == 0 else min(r2, er)
+                    c2 = ec if c2 == 0 else min(c2, ec)
+                    if r2 >= r1 and c2 >= c1:
+                        self.referenced_cells += (r2 - r1 + 1) * (c2 - c1 + 1)
+                reason = None
+                if rw.three_d:
+                    reason = "a 3-D reference across sheets (the engine does not compute them)"
+                if reason:
+                    self.gaps[key] = reason
+                    rows.setdefault(r, []).append(_value_xml(ref, cell.value))
+                    continue
+                text = rw.text
+                if cov and cov[0] == "array":
+                    rect = cov[2]
+                    nr, nc = rect[2] - rect[0] + 1, rect[3] - rect[1] + 1
+                    self.array_shapes[key] = (nr, nc)
+                    if nr * nc > 1:
+                        text = f"TAKE({text},{nr},{nc})"
+                attrs = ""
+                if shared:
+                    attrs = ' t="shared"' + "".join(f' {k}="{escape(v)}"' for k, v in cell.fattrs.items()
+                                                    if k in ("ref", "si"))
+                self.formula_cells.append(key)
+                body = escape(text) if (cell.formula or not shared) else ""
+                rows.setdefault(r, []).append(f'<c r="{ref}"><f{attrs}>{body}</f></c>' if body else
+                                              f'<c r="{ref}"><f{attrs}/></c>')
+            for (r, c), cov in covered.items():
+                if (r, c) not in cells and cov[0] == "array":
+                    self.arrays[(sheet, r, c)] = cov[1]  # a cell of an array range the file does not list
+                    self.formula_cells.append((sheet, r, c))
+            for (sh, r, c), v in sets.items():
+                if sh == sheet and (r, c) not in cells:
+                    rows.setdefault(r, []).append(_value_xml(f"{col_letters(c)}{r}", v))
+            xml = ['<?xml version="1.0" encoding="UTF-8" standalone="yes"?>'
+                   '<worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><sheetData>']
+            for r in sorted(rows):
+                xml.append(f'<row r="{r}">' + "".join(sorted(rows[r], key=_col_key)) + "</row>")
+            xml.append("</sheetData></worksheet>")
+            out_parts[path] = "".join(xml).encode("utf-8")
+        self.private_parts = out_parts
+        self._parts = parts
+        self.wb = None
+
+    # -- engine ------------------------------------------------------------------------------------
+    def load(self, entries):
+        """Load the private copy in the engine and register the catalogue functions."""
+        buf = io.BytesIO()
+        keep = ("[content_types].xml", "_rels/", "xl/workbook.xml", "xl/_rels/", "xl/worksheets/",
+                "xl/sharedstrings.xml", "xl/styles.xml")
+        with zipfile.ZipFile(buf, "w", zipfile.ZIP_STORED) as zf:
+            for name, data in self._parts.items():
+                low = name.lower()
+                if not low.startswith(keep) or low.startswith("xl/worksheets/_rels/"):
+                    continue
+                zf.writestr(name, self.private_parts.get(name, data))
+        wb = fz().load_workbook_bytes(buf.getvalue())
+        for sheet, name, (r1, c1, r2, c2), headers, header_rows, totals_rows in self.book.tables:
+            try:
+                wb.add_table(name, sheet, (r1, c1, r2, c2), headers, header_row=header_rows > 0,
+                             totals_row=totals_rows > 0)
+            except Exception:  # noqa: BLE001 - a table the engine refuses: its references stay #NAME?
+                pass
+        for entry in entries:
+            wb.register_function(entry.name.upper(), make_callback(entry, self.messages))
+        self.wb = wb
+        return self
+
+    def evaluate(self):
+        self.messages.clear()
+        self.wb.evaluate_all()
+
+    def set_value(self, sheet, row, col, value):
+        self.wb.set_value(sheet, row, col, value)
+
+    def evaluate_cells(self, cells):
+        self.messages.clear()
+        return self.wb.evaluate_cells([(s, r, c) for s, r, c in cells])
+
+    def value(self, sheet, row, col):
+        """A computed cell as a plain value (a legacy array's cells beyond its result: #N/A)."""
+        key = (sheet, row, col)
+        v = plain(self.wb.get_value(sheet, row, col))
+        if v is None and key in self.arrays:
+            ar, ac = self.arrays[key]
+            anchor = plain(self.wb.get_value(sheet, ar, ac))
+            if not isinstance(anchor, ErrorText) and _scalar_result(self.wb, sheet, ar, ac):
+                return anchor  # a single value entered over several cells fills them all
+            et = ErrorText("#N/A")
+            et.kind = "Na"
+            return et
+        return 0.0 if v is None else v
+
+    def message(self, key) -> str:
+        return ""
+
+    def messages_by_cell(self) -> dict:
+        return {self.tags[t]: m for t, m in self.messages.items() if t in self.tags}
+
+    def dependents(self, cells: list) -> set:
+        """Every cell that depends (directly or not) on ``cells`` [(sheet, row, col)]."""
+        roots = [f"'{s}'!{col_letters(c)}{r}" if not s.isalnum() else f"{s}!{col_letters(c)}{r}"
+                 for s, r, c in cells]
+        out = set()
+        try:
+            t = self.wb.trace(roots, direction=fz().TraceDirection.Dependents, max_depth=10_000,
+                              max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000)
+        except Exception:  # noqa: BLE001 - unknown: every cell counts as dependent
+            return None
+        from .book import parse_ref
+
+        for addr in t.nodes.keys():
+            sheet, _, ref = addr.rpartition("!")
+            sheet = sheet[1:-1].replace("''", "'") if sheet.startswith("'") else sheet
+            pos = parse_ref(ref)
+            if pos:
+                out.add((sheet, pos[0], pos[1]))
+        return out
+
+
+def _scalar_result(wb, sheet, r, c) -> bool:
+    try:
+        nxt = wb.get_value(sheet, r, c + 1)
+        below = wb.get_value(sheet, r + 1, c)
+    except Exception:  # noqa: BLE001
+        return False
+    return nxt is None and below is None
+
+
+def _col_key(cell_xml: str):
+    ref = cell_xml.split('"', 2)[1]
+    letters = "".join(ch for ch in ref if ch.isalpha())
+    return (len(letters), letters)
+
