@@ -23,6 +23,9 @@ Workarounds for what the engine does not do by itself (all here):
   them (``#SPILL!``): in the private copy the other cells are left out and the
   formula is wrapped in ``TAKE(..., rows, columns)`` so a result larger than the
   range shows its top-left part (as Excel does);
+* the engine evaluates in several threads by default and would call our
+  functions concurrently (the water properties then gave wrong numbers):
+  evaluation is set to one thread;
 * what-if data tables and 3-D references are not computed: those cells enter
   the private copy as their cached values and are reported as not computed.
 """
@@ -350,7 +353,11 @@ class Model:
                 if not low.startswith(keep) or low.startswith("xl/worksheets/_rels/"):
                     continue
                 zf.writestr(name, self.private_parts.get(name, data))
-        wb = fz().load_workbook_bytes(buf.getvalue())
+        # one thread: the engine would otherwise call our functions from several threads at
+        # once, and the physics (water properties) is not made for that (wrong numbers seen)
+        cfg = fz().EvaluationConfig()
+        cfg.enable_parallel = False
+        wb = fz().Workbook.from_bytes(buf.getvalue(), config=fz().WorkbookConfig(eval_config=cfg))
         for sheet, name, (r1, c1, r2, c2), headers, header_rows, totals_rows in self.book.tables:
             try:
                 wb.add_table(name, sheet, (r1, c1, r2, c2), headers, header_row=header_rows > 0,
