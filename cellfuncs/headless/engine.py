@@ -21,13 +21,18 @@ Workarounds for what the engine does not do by itself (all here):
   added from the table parts;
 * a legacy array formula whose other cells hold cached values spills into
   them (``#SPILL!``): in the private copy the other cells are left out and the
-  formula is wrapped in ``TAKE(..., rows, columns)`` so a result larger than the
-  range shows its top-left part (as Excel does);
+  formula is wrapped in ``LET(x, ..., TAKE(x, MIN(ROWS(x), rows), MIN(COLUMNS(x),
+  columns)))`` so a result larger than the range shows its top-left part and a
+  smaller one is spread as Excel spreads it (see :meth:`Model.value`);
 * the engine evaluates in several threads by default and would call our
   functions concurrently (the water properties then gave wrong numbers):
   evaluation is set to one thread;
-* what-if data tables and 3-D references are not computed: those cells enter
-  the private copy as their cached values and are reported as not computed.
+* what-if data tables are not computed by the engine: their cells enter the
+  private copy as their cached values and :meth:`Model.data_table_values`
+  computes them by setting the input cell(s) and evaluating the table's formula;
+* 3-D references (``SUM(Sheet1:Sheet3!A1)``) are expanded to a list of the
+  sheets' cells (:mod:`~cellfuncs.headless.formula_text`); one naming a sheet
+  that does not exist is reported as not computed.
 """
 
 from __future__ import annotations
@@ -35,7 +40,6 @@ from __future__ import annotations
 import io
 import math
 import zipfile
-from xml.sax.saxutils import escape
 
 from cellfuncs.errors import CellInputError
 from cellfuncs.xlsx import ErrorText, col_letters
@@ -55,6 +59,8 @@ LIMITATION_KINDS = {"NImpl": "a function or reference form the engine does not i
                     "Circ": "a circular reference (iterative calculation is off in this workbook)",
                     "Cancelled": "the calculation was stopped",
                     "Name": "a name or function the engine does not know"}
+#: the largest what-if data table computed (cells); larger ones keep their cached values
+MAX_DATA_TABLE_CELLS = 10_000
 #: messages of unexpected exceptions seen in registered functions (tests fail on these)
 INTERNAL_ERRORS: list = []
 
@@ -204,6 +210,11 @@ def plain(v):
 # the private copy
 
 
+def escape(text: str) -> str:
+    """XML text (saxutils pulls in urllib at import, a measurable part of a cold start)."""
+    return text.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")
+
+
 def _value_xml(ref: str, v) -> str:
     if v is None:
         return ""
@@ -255,6 +266,8 @@ class Model:
         self.array_shapes = {}       # (sheet, r, c) anchor -> (rows, cols)
         self.referenced_cells = 0
         self.functions = set()
+        self.data_tables = []        # [(sheet, (r1, c1, r2, c2), attributes)]
+        self.table_values = {}       # (sheet, row, col) -> value computed for a data table
         sets = sets or {}
         out_parts = {}
         for sheet, path in book.sheets:
@@ -264,8 +277,10 @@ class Model:
             ext_r, ext_c = book.extent.get(sheet, (0, 0))
             covered = {}
             for (r, c), cell in cells.items():
-                if cell.ftype in ("array", "dataTable") and cell.formula is not None or cell.ftype == "dataTable":
+                if cell.ftype in ("array", "dataTable"):
                     rect = _rect(cell.fattrs.get("ref") or f"{col_letters(c)}{r}")
+                    if rect and cell.ftype == "dataTable":
+                        self.data_tables.append((sheet, rect, dict(cell.fattrs)))
                     if rect:
                         for rr in range(rect[0], rect[2] + 1):
                             for cc in range(rect[1], rect[3] + 1):
@@ -275,23 +290,24 @@ class Model:
                 ref = f"{col_letters(c)}{r}"
                 key = (sheet, r, c)
                 if (sheet, r, c) in sets:
-                    rows.setdefault(r, []).append(_value_xml(ref, sets[key]))
+                    _put(rows, r, c, _value_xml(ref, sets[key]))
                     continue
                 cov = covered.get((r, c))
                 if cov and cov[0] == "dataTable":
-                    self.gaps[key] = "a what-if data table (the engine does not compute them)"
-                    rows.setdefault(r, []).append(_value_xml(ref, cell.value))
+                    self.gaps[key] = "a what-if data table too large to compute"
+                    self.formula_cells.append(key)
+                    _put(rows, r, c, _value_xml(ref, cell.value))
                     continue
                 if cov and cov[1] != (r, c):
                     self.arrays[key] = cov[1]
                     self.formula_cells.append(key)
                     continue  # filled by the anchor's result
                 if cell.formula is None and cell.ftype is None:
-                    rows.setdefault(r, []).append(_value_xml(ref, cell.value))
+                    _put(rows, r, c, _value_xml(ref, cell.value))
                     continue
                 tag = TAG + str(len(self.tags))
                 shared = cell.ftype == "shared"
-                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag)
+                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag, book.sheet_names)
                 if not shared:
                     self.tags[tag] = key
                 self.functions |= rw.functions
@@ -307,7 +323,7 @@ class Model:
                     reason = "a 3-D reference across sheets (the engine does not compute them)"
                 if reason:
                     self.gaps[key] = reason
-                    rows.setdefault(r, []).append(_value_xml(ref, cell.value))
+                    _put(rows, r, c, _value_xml(ref, cell.value))
                     continue
                 text = rw.text
                 if cov and cov[0] == "array":
@@ -315,14 +331,15 @@ class Model:
                     nr, nc = rect[2] - rect[0] + 1, rect[3] - rect[1] + 1
                     self.array_shapes[key] = (nr, nc)
                     if nr * nc > 1:
-                        text = f"TAKE({text},{nr},{nc})"
+                        text = (f"LET(cfarr,{text},TAKE(cfarr,MIN(ROWS(cfarr),{nr}),"
+                                f"MIN(COLUMNS(cfarr),{nc})))")
                 attrs = ""
                 if shared:
                     attrs = ' t="shared"' + "".join(f' {k}="{escape(v)}"' for k, v in cell.fattrs.items()
                                                     if k in ("ref", "si"))
                 self.formula_cells.append(key)
                 body = escape(text) if (cell.formula or not shared) else ""
-                rows.setdefault(r, []).append(f'<c r="{ref}"><f{attrs}>{body}</f></c>' if body else
+                _put(rows, r, c, f'<c r="{ref}"><f{attrs}>{body}</f></c>' if body else
                                               f'<c r="{ref}"><f{attrs}/></c>')
             for (r, c), cov in covered.items():
                 if (r, c) not in cells and cov[0] == "array":
@@ -330,11 +347,11 @@ class Model:
                     self.formula_cells.append((sheet, r, c))
             for (sh, r, c), v in sets.items():
                 if sh == sheet and (r, c) not in cells:
-                    rows.setdefault(r, []).append(_value_xml(f"{col_letters(c)}{r}", v))
+                    _put(rows, r, c, _value_xml(f"{col_letters(c)}{r}", v))
             xml = ['<?xml version="1.0" encoding="UTF-8" standalone="yes"?>'
                    '<worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><sheetData>']
             for r in sorted(rows):
-                xml.append(f'<row r="{r}">' + "".join(sorted(rows[r], key=_col_key)) + "</row>")
+                xml.append(f'<row r="{r}">' + "".join(rows[r][c] for c in sorted(rows[r])) + "</row>")
             xml.append("</sheetData></worksheet>")
             out_parts[path] = "".join(xml).encode("utf-8")
         self.private_parts = out_parts
@@ -381,21 +398,72 @@ class Model:
         return self.wb.evaluate_cells([(s, r, c) for s, r, c in cells])
 
     def value(self, sheet, row, col):
-        """A computed cell as a plain value (a legacy array's cells beyond its result: #N/A)."""
+        """A computed cell as a plain value.
+
+        A cell of a legacy array range beyond its result is filled as Excel does: a single
+        value fills the range, a single row repeats down, a single column repeats across,
+        anything else is #N/A.
+        """
         key = (sheet, row, col)
+        if key in self.table_values:
+            return self.table_values[key]
         v = plain(self.wb.get_value(sheet, row, col))
         if v is None and key in self.arrays:
             ar, ac = self.arrays[key]
-            anchor = plain(self.wb.get_value(sheet, ar, ac))
-            if not isinstance(anchor, ErrorText) and _scalar_result(self.wb, sheet, ar, ac):
-                return anchor  # a single value entered over several cells fills them all
+            nr, nc = self.array_shapes.get((sheet, ar, ac), (1, 1))
+            get = self.wb.get_value
+            rows_res = next((k for k in range(nr) if get(sheet, ar + k, ac) is None), nr)
+            cols_res = next((k for k in range(nc) if get(sheet, ar, ac + k) is None), nc)
+            i, j = row - ar, col - ac
+            if rows_res == 1 and j < cols_res:
+                return self.value(sheet, ar, ac + j)
+            if cols_res == 1 and i < rows_res:
+                return self.value(sheet, ar + i, ac)
             et = ErrorText("#N/A")
             et.kind = "Na"
             return et
         return 0.0 if v is None else v
 
-    def message(self, key) -> str:
-        return ""
+    def data_table_values(self) -> dict:
+        """Compute the what-if data tables: {(sheet, row, col): value}.
+
+        For each cell of a table the input cell takes the value at the head of the cell's row
+        or column and the table's formula is evaluated (ECMA-376 Part 1, 18.3.1.40: ``r1`` is
+        the (row) input cell, ``r2`` the column input cell of a two-variable table, ``dtr``
+        says a one-variable table's values are in a row).  The inputs get their values back
+        afterwards.  A table larger than :data:`MAX_DATA_TABLE_CELLS` stays not computed.
+        """
+        from .book import parse_ref
+
+        out = {}
+        for sheet, (r1, c1, r2, c2), a in self.data_tables:
+            if (r2 - r1 + 1) * (c2 - c1 + 1) > MAX_DATA_TABLE_CELLS:
+                continue
+            two = a.get("dt2D") in ("1", "true")
+            row_wise = a.get("dtr") in ("1", "true")
+            i1, i2 = parse_ref(a.get("r1", "")), parse_ref(a.get("r2", "")) if two else None
+            if i1 is None or (two and i2 is None):
+                continue
+            saved = [(p, self.wb.get_value(sheet, *p)) for p in ([i1, i2] if two else [i1])]
+            get = self.wb.get_value
+            for r in range(r1, r2 + 1):
+                for c in range(c1, c2 + 1):
+                    if two:
+                        self.wb.set_value(sheet, *i1, get(sheet, r1 - 1, c))
+                        self.wb.set_value(sheet, *i2, get(sheet, r, c1 - 1))
+                        formula = (r1 - 1, c1 - 1)
+                    elif row_wise:
+                        self.wb.set_value(sheet, *i1, get(sheet, r1 - 1, c))
+                        formula = (r, c1 - 1)
+                    else:
+                        self.wb.set_value(sheet, *i1, get(sheet, r, c1 - 1))
+                        formula = (r1 - 1, c)
+                    v = self.wb.evaluate_cell(sheet, *formula)
+                    out[(sheet, r, c)] = plain(v[0][0] if isinstance(v, list) and v and isinstance(v[0], list)
+                                               else v)
+            for p, v in saved:
+                self.wb.set_value(sheet, *p, v)
+        return out
 
     def messages_by_cell(self) -> dict:
         return {self.tags[t]: m for t, m in self.messages.items() if t in self.tags}
@@ -421,17 +489,7 @@ class Model:
         return out
 
 
-def _scalar_result(wb, sheet, r, c) -> bool:
-    try:
-        nxt = wb.get_value(sheet, r, c + 1)
-        below = wb.get_value(sheet, r + 1, c)
-    except Exception:  # noqa: BLE001
-        return False
-    return nxt is None and below is None
 
-
-def _col_key(cell_xml: str):
-    ref = cell_xml.split('"', 2)[1]
-    letters = "".join(ch for ch in ref if ch.isalpha())
-    return (len(letters), letters)
-
+def _put(rows: dict, r: int, c: int, cell_xml: str):
+    if cell_xml:
+        rows.setdefault(r, {})[c] = cell_xml

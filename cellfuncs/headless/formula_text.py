@@ -113,7 +113,43 @@ def _ranges_in(piece: str, sheet, out: list):
             out.append((sheet, min(r1, r2), 1, max(r1, r2), 0))
 
 
-def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None) -> Rewritten:
+def _ranges_3d(expanded, ref, first, last, sheets, out):
+    upper = [x.upper() for x in sheets]
+    i, j = sorted((upper.index(first.upper()), upper.index(last.upper())))
+    for sh in sheets[i:j + 1]:
+        if ":" in ref:
+            _ranges_in(ref, sh, out)
+
+
+def _quote(sheet: str) -> str:
+    if re.fullmatch(r"[A-Za-z_][A-Za-z0-9_.]*", sheet) and not _COLROW.fullmatch(sheet):
+        return sheet
+    return "'" + sheet.replace("'", "''") + "'"
+
+
+def _expand_3d(first: str, last: str, ref: str, sheets):
+    """``Sheet1:Sheet3!A1`` -> ``Sheet1!A1,Sheet2!A1,Sheet3!A1`` (the sheets between, in workbook order).
+
+    Excel allows a 3-D reference only in functions that take a list of values (SUM, AVERAGE,
+    COUNT, MAX, MIN, PRODUCT, STDEV, VAR and their variants), where this list means the same.
+    None when a sheet is unknown.
+    """
+    if not sheets:
+        return None
+    upper = [x.upper() for x in sheets]
+    try:
+        i, j = upper.index(first.upper()), upper.index(last.upper())
+    except ValueError:
+        return None
+    i, j = min(i, j), max(i, j)
+    return ",".join(f"{_quote(sh)}!{ref}" for sh in sheets[i:j + 1])
+
+
+_REF_AFTER = re.compile(r"(\$?[A-Za-z]{1,3}\$?\d+(?::\$?[A-Za-z]{1,3}\$?\d+)?|"
+                        r"\$?[A-Za-z]{1,3}:\$?[A-Za-z]{1,3}|\$?\d+:\$?\d+)")
+
+
+def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None, sheets=None) -> Rewritten:
     """Rewrite one formula (with or without the leading ``=``) for the engine.
 
     Parameters
@@ -125,6 +161,9 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None) -> Re
     tag : str or None
         Text of the tag argument put before the first argument of each catalogue call
         (``None``: no tag).
+    sheets : list of str or None
+        The workbook's sheets in order, to expand 3-D references (``None``: they are kept
+        and flagged in :attr:`Rewritten.three_d`).
     """
     s = text[1:] if text.startswith("=") else text
     out = []
@@ -166,7 +205,17 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None) -> Re
                     out.append("#REF!")
                     i = k + 1 + (m.end() if m else 0)
                     continue
-                if ":" in sheet:
+                if ":" in sheet and m:
+                    first, _, last = sheet.partition(":")
+                    expanded = _expand_3d(first, last, m.group(0), sheets)
+                    if expanded is None:
+                        res.three_d = True
+                    else:
+                        _ranges_3d(expanded, m.group(0), first, last, sheets, res.ranges)
+                        out.append(expanded)
+                        i = k + 1 + m.end()
+                        continue
+                elif ":" in sheet:
                     res.three_d = True
                 if m:
                     _ranges_in(m.group(0), sheet, res.ranges)
@@ -187,9 +236,16 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None) -> Re
                     if s[k] == ":":
                         m2 = _NAME.match(s, k + 1)
                         if m2 and m2.end() < n and s[m2.end()] == "!":
-                            res.three_d = True
-                            out.append(s[i:m2.end() + 1])
-                            i = m2.end() + 1
+                            rm = _REF_AFTER.match(s, m2.end() + 1)
+                            expanded = _expand_3d(word, m2.group(0), rm.group(0), sheets) if rm else None
+                            if expanded is None:
+                                res.three_d = True
+                                out.append(s[i:m2.end() + 1])
+                                i = m2.end() + 1
+                                continue
+                            _ranges_3d(expanded, rm.group(0), word, m2.group(0), sheets, res.ranges)
+                            out.append(expanded)
+                            i = rm.end()
                             continue
                     if s[k] == "!":
                         fm = _NAME.match(s, k + 1)
@@ -237,10 +293,19 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None) -> Re
                     i = j
                     continue
                 piece_m = _RANGE.match(s, i)
-                if piece_m and piece_m.end() < n and s[piece_m.end()] == "!":
-                    res.three_d = True  # Sheet1:Sheet3!A1 with sheet names that look like cells
-                    out.append(piece_m.group(0))
-                    i = piece_m.end()
+                if piece_m and piece_m.end() < n and s[piece_m.end()] == "!" and piece_m.group(1):
+                    # Sheet1:Sheet3!A1 with sheet names that look like cells (P1:P3!A1)
+                    rm = _REF_AFTER.match(s, piece_m.end() + 1)
+                    first, last = piece_m.group(1), piece_m.group(2)
+                    expanded = _expand_3d(first, last, rm.group(0), sheets) if rm else None
+                    if expanded is None:
+                        res.three_d = True
+                        out.append(piece_m.group(0))
+                        i = piece_m.end()
+                        continue
+                    _ranges_3d(expanded, rm.group(0), first, last, sheets, res.ranges)
+                    out.append(expanded)
+                    i = rm.end()
                     continue
                 if piece_m:
                     _ranges_in(piece_m.group(0), None, res.ranges)

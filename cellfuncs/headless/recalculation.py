@@ -208,6 +208,14 @@ def _settle(model, book):
     from .engine import LIMITATION_KINDS
 
     model.evaluate()
+    if model.data_tables:
+        tables = model.data_table_values()
+        for (s, r, c), v in tables.items():
+            model.gaps.pop((s, r, c), None)
+            model.set_value(s, r, c, None if isinstance(v, ErrorText) else v)
+            model.table_values[(s, r, c)] = v
+        if tables:
+            model.evaluate()
     late = {}
     for _ in range(3):
         fresh = {}
