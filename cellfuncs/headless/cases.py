@@ -69,10 +69,10 @@ class CaseRunner:
             stored = data.cells.get(cell[0], {}).get((cell[1], cell[2]))
             self.numeric_inputs.append(not (stored is not None and isinstance(stored.value, str)
                                             and not isinstance(stored.value, ErrorText)))
+        deps = model.dependents(self.input_cells)  # traced before cells get their cached values
         late = rc._settle(model, data)
         gaps = dict(model.gaps)
         gaps.update(late)
-        deps = model.dependents(self.input_cells) if gaps else set()
         #: outputs that cannot be computed: (reason, True when they depend on the inputs)
         self.gaps = {}
         for cell in self.output_cells:

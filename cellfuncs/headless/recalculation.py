@@ -94,15 +94,13 @@ def _name_target(text: str, book):
     t = text.strip()
     if t.startswith("="):
         t = t[1:]
+    if "#REF!" in t or not t:
+        return "points to nothing (#REF!)"
     sheet, bang, ref = t.rpartition("!")
     if not bang:
         if re.fullmatch(r"-?[\d.]+(?:[eE][-+]?\d+)?|\".*\"|TRUE|FALSE", t, re.I):
             return f"is the constant {t}, not a cell"
-        if "#REF!" in t or not t:
-            return "points to nothing (#REF!)"
         return f"is the formula {t}, not a cell"
-    if "#REF!" in ref or "#REF!" in sheet:
-        return "points to nothing (#REF!)"
     sheet = sheet[1:-1].replace("''", "'") if sheet.startswith("'") else sheet
     found = book.sheet(sheet)
     if found is None:
@@ -257,12 +255,13 @@ def recalc(path: str, sets: dict | None = None):
     """
     with limits.guard():
         pkg, book, model, resolved = open_model(path, sets)
+        # what depends on the changed inputs, traced before cells are replaced by their cached values
+        deps = model.dependents(list(resolved)) if resolved else set()
         late = _settle(model, book)
         gaps = dict(model.gaps)
         gaps.update(late)
         stale = set()
         if resolved and gaps:
-            deps = model.dependents(list(resolved))
             stale = set(gaps) if deps is None else {k for k in gaps if k in deps}
         res = Recalc(warnings=name_warnings(book))
         by_cell = model.messages_by_cell()
