@@ -251,11 +251,25 @@ def run_formulas(path, sheet, cell):
     model = formulas.ExcelModel().loads(path).finish()
     sol = model.calculate()
     name = os.path.basename(path).upper()
+    from openpyxl.utils.cell import coordinate_from_string, column_index_from_string, range_boundaries
+
+    col, row = coordinate_from_string(cell)
+    c = column_index_from_string(col)
+    prefix = f"'[{name}]{sheet.upper()}'!"
     for k, v in sol.items():
-        if k.upper() == f"'[{name}]{sheet.upper()}'!{cell}":
-            val = getattr(v, "value", v)
-            val = val.flat[0] if hasattr(val, "flat") else val
-            return str(val) if type(val).__name__.endswith("Error") or "XlError" in type(val).__name__ else val
+        k = str(k).upper()
+        if not k.startswith(prefix):
+            continue
+        c1, r1, c2, r2 = range_boundaries(k[len(prefix):])
+        if not (r1 <= row <= r2 and c1 <= c <= c2):
+            continue
+        val = getattr(v, "value", v)
+        if hasattr(val, "shape") and getattr(val, "ndim", 0) == 2:
+            i, j = row - r1, c - c1
+            val = val[i, j] if i < val.shape[0] and j < val.shape[1] else "(outside the result)"
+        elif hasattr(val, "flat"):
+            val = val.flat[0]
+        return str(val) if "Error" in type(val).__name__ else val
     return "(not in the solution)"
 
 
