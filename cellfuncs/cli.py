@@ -75,9 +75,12 @@ def cmd_recalc(ns) -> int:
         if (sheet, ref) not in res.gaps:
             print(f"{sheet}!{ref}: {msg}", file=sys.stderr)
     for (sheet, ref), why in res.gaps.items():
-        kept = "kept the value the file held" if (sheet, ref) in res.kept else res.messages.get(
-            (sheet, ref), "#N/A")
-        print(f"{sheet}!{ref}: not computed: {why} ({kept})", file=sys.stderr)
+        if (sheet, ref) in res.kept:
+            print(f"{sheet}!{ref}: not computed: {why} (kept the value the file held)", file=sys.stderr)
+        else:
+            msg = res.messages.get((sheet, ref), f"#N/A not computed: {why}")
+            code, _, text = msg.partition(" ")
+            print(f"{sheet}!{ref}: {text} (now {code})", file=sys.stderr)
     if ns.json:
         obj = {f"{s}!{r}": _json_value(v) for (s, r), v in res.values.items()}
         json.dump(obj, sys.stdout, ensure_ascii=False)

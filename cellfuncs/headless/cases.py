@@ -220,6 +220,18 @@ def run(ns) -> int:
         except ImportError:  # pragma: no cover
             progress = None
 
+    try:
+        results = _compute(ns, runner, cases, progress)
+    except MemoryError:
+        raise UsageError("out of memory while computing the cases") from None
+    finally:
+        if progress:
+            progress.close()
+    _write_results(out, runner, rows, results, delimiter)
+    return 0
+
+
+def _compute(ns, runner, cases, progress) -> list:
     results = []
     if ns.workers == 1 or len(cases) < 2:
         for vals in cases:
@@ -230,14 +242,23 @@ def run(ns) -> int:
         import multiprocessing as mp
 
         chunk = max(1, len(cases) // (ns.workers * 4))
-        with mp.get_context().Pool(ns.workers, _init_worker, (ns.book, runner.inputs, runner.outputs)) as pool:
+        ctx = mp.get_context()
+        if ctx.get_start_method() == "fork":
+            # the workers start as copies of this process: the loaded workbook and the imported
+            # physics come with them instead of being loaded once more per worker
+            _WORKER["runner"] = runner
+            init, args = None, ()
+        else:  # spawn (Windows, macOS): each worker loads the book itself
+            init, args = _init_worker, (ns.book, runner.inputs, runner.outputs)
+        with ctx.Pool(ns.workers, init, args) as pool:
             for r in pool.imap(_work, cases, chunksize=chunk):
                 results.append(_unpack(r))
                 if progress:
                     progress.update()
-    if progress:
-        progress.close()
+    return results
 
+
+def _write_results(out, runner, rows, results, delimiter):
     buf = io.StringIO()
     w = csv.writer(buf, lineterminator="\n", delimiter=delimiter)
     cols = list(runner.inputs)
@@ -257,6 +278,5 @@ def run(ns) -> int:
                 cells += [_fmt(o), ""]
         w.writerow([raw.get(h, "").strip() for h in runner.inputs] + cells)
     write_text_atomic(out, buf.getvalue())
-    print(f"{len(cases)} cases, {len(runner.outputs)} outputs, {n_err} error cells; wrote {out}",
+    print(f"{len(results)} cases, {len(runner.outputs)} outputs, {n_err} error cells; wrote {out}",
           file=sys.stderr)
-    return 0

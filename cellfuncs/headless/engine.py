@@ -268,6 +268,8 @@ class Model:
         self.functions = set()
         self.data_tables = []        # [(sheet, (r1, c1, r2, c2), attributes)]
         self.table_values = {}       # (sheet, row, col) -> value computed for a data table
+        self.extra_extent = {}       # sheet -> (rows, cols) reached by array ranges beyond the cells
+        self._snap = {}
         sets = sets or {}
         out_parts = {}
         for sheet, path in book.sheets:
@@ -342,6 +344,8 @@ class Model:
                 _put(rows, r, c, f'<c r="{ref}"><f{attrs}>{body}</f></c>' if body else
                                               f'<c r="{ref}"><f{attrs}/></c>')
             for (r, c), cov in covered.items():
+                er, ec = self.extra_extent.get(sheet, (0, 0))
+                self.extra_extent[sheet] = (max(er, r), max(ec, c))
                 if (r, c) not in cells and cov[0] == "array":
                     self.arrays[(sheet, r, c)] = cov[1]  # a cell of an array range the file does not list
                     self.formula_cells.append((sheet, r, c))
@@ -388,14 +392,29 @@ class Model:
 
     def evaluate(self):
         self.messages.clear()
+        self._snap = {}
         self.wb.evaluate_all()
 
     def set_value(self, sheet, row, col, value):
+        self._snap = {}
         self.wb.set_value(sheet, row, col, value)
 
     def evaluate_cells(self, cells):
         self.messages.clear()
+        self._snap = {}
         return self.wb.evaluate_cells([(s, r, c) for s, r, c in cells])
+
+    def _get(self, sheet, row, col):
+        """A cell's engine value, read sheet by sheet in one call (a call per cell is slow)."""
+        snap = self._snap.get(sheet)
+        if snap is None:
+            er, ec = self.book.extent.get(sheet, (0, 0))
+            er, ec = max(er, self.extra_extent.get(sheet, (0, 0))[0]), max(ec, self.extra_extent.get(sheet, (0, 0))[1])
+            snap = self.wb.sheet(sheet).get_values(fz().RangeAddress(sheet, 1, 1, max(er, 1), max(ec, 1)))
+            self._snap[sheet] = snap
+        if row <= len(snap) and snap and col <= len(snap[0]):
+            return snap[row - 1][col - 1]
+        return self.wb.get_value(sheet, row, col)
 
     def value(self, sheet, row, col):
         """A computed cell as a plain value.
@@ -407,11 +426,11 @@ class Model:
         key = (sheet, row, col)
         if key in self.table_values:
             return self.table_values[key]
-        v = plain(self.wb.get_value(sheet, row, col))
+        v = plain(self._get(sheet, row, col))
         if v is None and key in self.arrays:
             ar, ac = self.arrays[key]
             nr, nc = self.array_shapes.get((sheet, ar, ac), (1, 1))
-            get = self.wb.get_value
+            get = self._get
             rows_res = next((k for k in range(nr) if get(sheet, ar + k, ac) is None), nr)
             cols_res = next((k for k in range(nc) if get(sheet, ar, ac + k) is None), nc)
             i, j = row - ar, col - ac

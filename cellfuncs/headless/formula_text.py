@@ -32,6 +32,8 @@ _NAME = re.compile(r"[A-Za-z_\\][A-Za-z0-9_.\\]*")
 _CELL = r"\$?[A-Za-z]{1,3}\$?\d+"
 _RANGE = re.compile(rf"({_CELL}):({_CELL})|(\$?[A-Za-z]{{1,3}}):(\$?[A-Za-z]{{1,3}})(?![\w(])|(\$?\d+):(\$?\d+)")
 _COLROW = re.compile(r"\$?([A-Za-z]{1,3})\$?(\d+)")
+_SPECIAL = re.compile(r"[\"'\[!]")
+_CALL = re.compile(r"([A-Za-z_\\][A-Za-z0-9_.\\]*)\s*\(")
 
 
 @dataclass
@@ -166,6 +168,15 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None, sheet
         and flagged in :attr:`Rewritten.three_d`).
     """
     s = text[1:] if text.startswith("=") else text
+    if not _SPECIAL.search(s):
+        calls = {m.group(1).upper() for m in _CALL.finditer(s)}
+        if not (calls & catalogue_names) and not any(c.startswith("_XLUDF.") for c in calls):
+            # the common case: no quotes, brackets, sheet prefixes or catalogue calls
+            res = Rewritten(s, functions={c[7:] if c.startswith("_XLFN.") else c for c in calls})
+            for m in _RANGE.finditer(s):
+                if m.start() == 0 or not (s[m.start() - 1].isalnum() or s[m.start() - 1] in "._$"):
+                    _ranges_in(m.group(0), None, res.ranges)
+            return res
     out = []
     res = Rewritten("")
     stack = []  # one entry per open parenthesis: True when it opens a catalogue call
