@@ -126,8 +126,15 @@ def _shared_strings(parts: dict, path: str | None) -> list:
         return []
     out = []
     for si in root:
-        out.append("".join(t.text or "" for t in si.iter() if _local(t.tag) == "t"
-                           and not any(_local(p.tag) == "rPh" for p in ())))
+        # the text runs of the item (<t>, or <r><t>); phonetic runs (<rPh>) are not part of the value
+        parts = []
+        for ch in si:
+            name = _local(ch.tag)
+            if name == "t":
+                parts.append(ch.text or "")
+            elif name == "r":
+                parts.extend(t.text or "" for t in ch if _local(t.tag) == "t")
+        out.append("".join(parts))
     return out
 
 
