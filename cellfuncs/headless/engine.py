@@ -488,7 +488,13 @@ class Model:
         return {self.tags[t]: m for t, m in self.messages.items() if t in self.tags}
 
     def dependents(self, cells: list) -> set:
-        """Every cell that depends (directly or not) on ``cells`` [(sheet, row, col)]."""
+        """Every cell that depends (directly or not) on ``cells`` [(sheet, row, col)].
+
+        None when that is not known for sure (references built at run time by INDIRECT or
+        OFFSET, or a trace that stopped at its budget): callers then treat every cell as dependent.
+        """
+        if self.functions & {"INDIRECT", "OFFSET"}:
+            return None  # references built at run time are not traced: every cell counts as dependent
         roots = [f"'{s}'!{col_letters(c)}{r}" if not s.isalnum() else f"{s}!{col_letters(c)}{r}"
                  for s, r, c in cells]
         out = set()
@@ -496,6 +502,11 @@ class Model:
             t = self.wb.trace(roots, direction=fz().TraceDirection.Dependents, max_depth=10_000,
                               max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000)
         except Exception:  # noqa: BLE001 - unknown: every cell counts as dependent
+            return None
+        try:
+            if t.truncation.incomplete:
+                return None  # the trace stopped at its budget: every cell counts as dependent
+        except AttributeError:
             return None
         from .book import parse_ref
 
