@@ -223,7 +223,31 @@ def test_a_cell_the_engine_cannot_compute_keeps_its_value(tmp_path):
     assert p.returncode == 3, p.stderr
     got = json.loads(p.stdout)
     assert got["Sheet!B1"] == "#N/A" and got["Sheet!D1"] == 5
+    assert got["Sheet!C1"] == "#N/A"          # nothing is computed from the stale value 5
     assert "Sheet!B1: not computed: " in p.stderr and "inputs changed" in p.stderr
+
+
+def test_cases_follow_what_if_tables(tmp_path):
+    """A data table whose formula uses a case input is computed again for every case."""
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws["A1"], ws["K1"] = 1, 0
+    ws["C1"] = "=A1*10+K1"          # the table's formula; A1 is its column input cell
+    ws["B2"], ws["B3"], ws["C2"], ws["C3"] = 2, 3, 0, 0
+    ws["E1"] = "=MAX(C2:C3)"
+    wb.defined_names["out_top"] = DefinedName("out_top", attr_text="Sheet!$E$1")
+    path = tmp_path / "t.xlsx"
+    wb.save(path)
+    _edit(path, "xl/worksheets/sheet1.xml", lambda x: re.sub(
+        r'<c r="C2"[^>]*>.*?</c>', '<c r="C2"><f t="dataTable" ref="C2:C3" dt2D="0" dtr="0" r1="A1"/><v>0</v></c>',
+        x, flags=re.S))
+    cases = tmp_path / "c.csv"
+    cases.write_text("Sheet!K1\n1\n5\n", encoding="utf-8")
+    out = tmp_path / "r.csv"
+    p = _run("cases", str(path), str(cases), "-o", str(out))
+    assert p.returncode == 0, p.stderr
+    rows = out.read_text().splitlines()
+    assert rows[1].split(",")[1] == "31" and rows[2].split(",")[1] == "35"   # 3*10 + K1
 
 
 @pytest.fixture()

@@ -70,7 +70,8 @@ class CaseRunner:
             self.numeric_inputs.append(not (stored is not None and isinstance(stored.value, str)
                                             and not isinstance(stored.value, ErrorText)))
         deps = model.dependents(self.input_cells)  # traced before cells get their cached values
-        late = rc._settle(model, data)
+        # a cell the engine cannot compute that depends on the inputs is an error in every case
+        late = rc._settle(model, data, lambda key: deps is None or key in deps)
         gaps = dict(model.gaps)
         gaps.update(late)
         #: outputs that cannot be computed: (reason, True when they depend on the inputs)
@@ -100,6 +101,12 @@ class CaseRunner:
         for (s, r, c), v in zip(self.input_cells, values):
             m.set_value(s, r, c, v)
         todo = [c for c in self.output_cells if c not in self.gaps]
+        if m.data_tables:
+            # what-if tables follow the case's inputs: computed again before the outputs
+            m.evaluate()
+            from .recalculation import _refresh_tables
+
+            _refresh_tables(m)
         if todo:
             m.evaluate_cells(todo)
         by_cell = m.messages_by_cell()

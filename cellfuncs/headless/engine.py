@@ -399,6 +399,10 @@ class Model:
         self._snap = {}
         self.wb.set_value(sheet, row, col, value)
 
+    def set_error(self, sheet, row, col, code: str):
+        self._snap = {}
+        self.wb.set_value(sheet, row, col, engine_error(code))
+
     def evaluate_cells(self, cells):
         self.messages.clear()
         self._snap = {}

@@ -201,19 +201,33 @@ def open_model(path: str, sets: dict | None = None):
     return pkg, book, model, resolved
 
 
-def _settle(model, book):
-    """Evaluate; cells the engine cannot compute get their cached value and the rest is evaluated again."""
+def _refresh_tables(model):
+    """Compute the what-if data tables and give the engine their values."""
+    tables = model.data_table_values()
+    for (s, r, c), v in tables.items():
+        model.gaps.pop((s, r, c), None)
+        if isinstance(v, ErrorText):
+            model.set_error(s, r, c, str(v))
+        else:
+            model.set_value(s, r, c, v)
+        model.table_values[(s, r, c)] = v
+    return bool(tables)
+
+
+def _settle(model, book, stale=lambda key: False):
+    """Evaluate; a cell the engine cannot compute gets its cached value, and the rest is evaluated again.
+
+    ``stale(key)`` says whether such a cell depends on changed inputs: then it gets an error
+    instead, so nothing computed from it uses a value the file held for other inputs.
+    """
     from .engine import LIMITATION_KINDS
 
+    for (s, r, c) in list(model.gaps):
+        if stale((s, r, c)):
+            model.set_error(s, r, c, "#N/A")
     model.evaluate()
-    if model.data_tables:
-        tables = model.data_table_values()
-        for (s, r, c), v in tables.items():
-            model.gaps.pop((s, r, c), None)
-            model.set_value(s, r, c, None if isinstance(v, ErrorText) else v)
-            model.table_values[(s, r, c)] = v
-        if tables:
-            model.evaluate()
+    if model.data_tables and _refresh_tables(model):
+        model.evaluate()
     late = {}
     for _ in range(3):
         fresh = {}
@@ -234,8 +248,10 @@ def _settle(model, book):
             break
         late.update(fresh)
         for (s, r, c), (_, cached) in fresh.items():
-            if cached is not None:
-                model.set_value(s, r, c, cached if not isinstance(cached, ErrorText) else None)
+            if stale((s, r, c)) or isinstance(cached, ErrorText):
+                model.set_error(s, r, c, "#N/A" if stale((s, r, c)) else str(cached))
+            elif cached is not None:
+                model.set_value(s, r, c, cached)
         model.evaluate()
     return {k: reason for k, (reason, _) in late.items()}
 
@@ -257,7 +273,7 @@ def recalc(path: str, sets: dict | None = None):
         pkg, book, model, resolved = open_model(path, sets)
         # what depends on the changed inputs, traced before cells are replaced by their cached values
         deps = model.dependents(list(resolved)) if resolved else set()
-        late = _settle(model, book)
+        late = _settle(model, book, lambda key: bool(resolved) and (deps is None or key in deps))
         gaps = dict(model.gaps)
         gaps.update(late)
         stale = set()
