@@ -352,3 +352,20 @@ def test_budget_and_memory_errors_are_one_line(tmp_path):
     assert p.returncode == 2 and len(p.stderr.strip().splitlines()) == 1, p.stderr
     assert "out of memory" in p.stderr and "Traceback" not in p.stderr
     assert not out.exists() and not list(tmp_path.glob(".cellfuncs-*"))
+
+
+def test_a_name_holding_one_of_our_formulas_is_reported_not_guessed(tmp_path):
+    """The engine cannot load a defined name whose formula calls our functions: the cell says so."""
+    wb = openpyxl.Workbook()
+    ws = wb.active
+    ws["A1"] = 3
+    ws["B1"] = "=lm+A1"
+    ws["C1"] = "=A1*2"
+    wb.defined_names["lm"] = DefinedName("lm", attr_text="HX_LMTD(100,60,30,40.2)")
+    path = tmp_path / "nm.xlsx"
+    wb.save(path)
+    p = _run("recalc", str(path), "-o", str(tmp_path / "o.xlsx"), "--json")
+    assert p.returncode == 3, p.stderr
+    got = json.loads(p.stdout)
+    assert got["Sheet!C1"] == 6 and got["Sheet!B1"] == "#N/A"
+    assert "Sheet!B1: not computed: uses the defined name lm" in p.stderr

@@ -358,9 +358,13 @@ class Model:
                 xml.append(f'<row r="{r}">' + "".join(rows[r][c] for c in sorted(rows[r])) + "</row>")
             xml.append("</sheetData></worksheet>")
             out_parts[path] = "".join(xml).encode("utf-8")
+        wb_xml = parts.get("xl/workbook.xml", b"").decode("utf-8", "replace")
+        if any(n in wb_xml.upper() for n in catalogue_names) or "[" in wb_xml:
+            out_parts["xl/workbook.xml"] = _names_for_engine(wb_xml, catalogue_names, book.sheet_names)
         self.private_parts = out_parts
         self._parts = parts
         self.wb = None
+        self.dropped_names = set()
 
     # -- engine ------------------------------------------------------------------------------------
     def load(self, entries):
@@ -387,8 +391,27 @@ class Model:
                 pass
         for entry in entries:
             wb.register_function(entry.name.upper(), make_callback(entry, self.messages))
+        # defined names holding a formula the engine could not load (e.g. one calling our
+        # functions: they are registered only after loading); cells using them are not computed
+        try:
+            self.dropped_names = {d["name"].upper() for d in wb.name_import_diagnostics if d.get("name")}
+        except Exception:  # noqa: BLE001
+            self.dropped_names = set()
         self.wb = wb
         return self
+
+    def uses_dropped_name(self, key) -> str | None:
+        """The first defined name the engine could not load that the cell's formula uses."""
+        if not self.dropped_names:
+            return None
+        import re
+
+        stored = self.book.cells.get(key[0], {}).get((key[1], key[2]))
+        text = re.sub(r'"(?:[^"]|"")*"', "", (stored.formula or "") if stored else "")
+        for word in re.findall(r"[A-Za-z_\\][A-Za-z0-9_.\\]*", text):
+            if word.upper() in self.dropped_names:
+                return word
+        return None
 
     def evaluate(self):
         self.messages.clear()
@@ -522,6 +545,19 @@ class Model:
                 out.add((sheet, pos[0], pos[1]))
         return out
 
+
+
+def _names_for_engine(xml: str, catalogue_names, sheets) -> bytes:
+    """Defined names' formulas as the engine should see them (omitted arguments, links)."""
+    import re
+
+    def sub(m):
+        body = (m.group(2).replace("&lt;", "<").replace("&gt;", ">").replace("&quot;", '"')
+                .replace("&apos;", "'").replace("&amp;", "&"))
+        return m.group(1) + escape(rewrite(body, catalogue_names, None, sheets).text) + m.group(3)
+
+    return re.sub(r"(<(?:\w+:)?definedName\b[^>]*>)(.*?)(</(?:\w+:)?definedName>)", sub, xml,
+                  flags=re.S).encode("utf-8")
 
 
 def _put(rows: dict, r: int, c: int, cell_xml: str):

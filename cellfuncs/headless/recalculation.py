@@ -241,6 +241,11 @@ def _settle(model, book, stale=lambda key: False):
                 cached = stored.value if stored is not None else None
                 if cached is not None and str(cached) == str(v):
                     continue  # the file held the same error: a result, not a gap
+                dropped = model.uses_dropped_name(key) if kind == "Name" else None
+                if dropped:
+                    fresh[key] = (f"uses the defined name {dropped}, whose formula the engine cannot load",
+                                  cached)
+                    continue
                 if kind == "Name" and not (cached is not None and not isinstance(cached, ErrorText)):
                     continue  # #NAME? with nothing better to keep: an error as Excel shows it
                 fresh[key] = (LIMITATION_KINDS[kind], cached)
