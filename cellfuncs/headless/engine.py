@@ -30,6 +30,9 @@ Workarounds for what the engine does not do by itself (all here):
 * what-if data tables are not computed by the engine: their cells enter the
   private copy as their cached values and :meth:`Model.data_table_values`
   computes them by setting the input cell(s) and evaluating the table's formula;
+* defined names whose formula calls one of our functions are dropped by the
+  engine when it loads the file (the functions are registered afterwards):
+  cells using them are reported as not computed (:meth:`Model.uses_dropped_name`);
 * 3-D references (``SUM(Sheet1:Sheet3!A1)``) are expanded to a list of the
   sheets' cells (:mod:`~cellfuncs.headless.formula_text`); one naming a sheet
   that does not exist is reported as not computed.
