@@ -261,7 +261,7 @@ def run_formulas(path, sheet, cell):
         if not k.startswith(prefix):
             continue
         c1, r1, c2, r2 = range_boundaries(k[len(prefix):])
-        if not (r1 <= row <= r2 and c1 <= c <= c2):
+        if None in (c1, r1, c2, r2) or not (r1 <= row <= r2 and c1 <= c <= c2):
             continue
         val = getattr(v, "value", v)
         if hasattr(val, "shape") and getattr(val, "ndim", 0) == 2:
