@@ -1,7 +1,9 @@
 """The ``cellfuncs`` command: recalc, cases, inputs, functions, demo.
 
 Exit codes: 0 when the job was done (a workbook with error cells still counts
-as computed), 2 with one line on stderr for unusable input.  No command ever
+as computed), 3 when ``recalc`` computed with gaps (cells it could not compute
+kept their cached value or became errors; each is named on stderr), 2 with one
+line on stderr for unusable input.  No command ever
 writes over its input; outputs are written atomically.
 """
 
@@ -9,7 +11,6 @@ from __future__ import annotations
 
 import argparse
 import json
-import math
 import os
 import sys
 
@@ -19,20 +20,8 @@ __all__ = ["main"]
 from cellfuncs.errors import UsageError
 
 
-def _parse_value(text: str):
-    t = text.strip()
-    if t == "":
-        raise UsageError("--set: empty value (write REF=VALUE with a number or text)")
-    try:
-        v = float(t)
-    except ValueError:
-        return t
-    if not math.isfinite(v):
-        raise UsageError(f"--set: {t!r} is not a finite number")
-    return v
-
-
 def _parse_sets(items):
+    """``REF=VALUE`` items -> {target: value text}; the values are read like `cases` cells."""
     sets = {}
     for item in items or ():
         if "=" not in item:
@@ -40,28 +29,17 @@ def _parse_sets(items):
         ref, _, val = item.partition("=")
         if not ref.strip():
             raise UsageError(f"--set {item}: the cell reference or name is missing")
-        sets[ref.strip()] = _parse_value(val)
+        if ref.strip() in sets:
+            raise UsageError(f"--set {ref.strip()}: given twice; set each cell once")
+        sets[ref.strip()] = val
     return sets
-
-
-def _same_file(a: str, b: str) -> bool:
-    if os.path.exists(a) and os.path.exists(b):
-        return os.path.samefile(a, b)
-    return os.path.realpath(a) == os.path.realpath(b)
 
 
 def check_output_path(out: str, *inputs: str):
     """Refuse an output that is an input, a folder, or in a folder that does not exist."""
-    for src in inputs:
-        if _same_file(src, out):
-            raise UsageError(f"-o {out}: would write over an input file; choose another file")
-    if os.path.isdir(out):
-        raise UsageError(f"-o {out}: is a folder; give a file name")
-    folder = os.path.dirname(os.path.abspath(out))
-    if not os.path.isdir(folder):
-        raise UsageError(f"-o {out}: folder {folder} does not exist")
-    if not os.access(folder, os.W_OK):
-        raise UsageError(f"-o {out}: cannot write in folder {folder}")
+    from cellfuncs.headless.files import check_output_path as check
+
+    check(out, *inputs)
 
 
 def _json_value(v):
@@ -73,6 +51,7 @@ def _json_value(v):
 
 
 def cmd_recalc(ns) -> int:
+    """Exit 0: every formula computed; 3: computed with gaps (cells kept or not computed); 2: unusable."""
     from cellfuncs import headless
     from cellfuncs.xlsx import BookError, check_output_kind
 
@@ -88,18 +67,31 @@ def cmd_recalc(ns) -> int:
         headless.write_with_cached_values(res, pkg, ns.output)
     except BookError as exc:
         raise UsageError(str(exc)) from None
+    except MemoryError:
+        raise UsageError("out of memory while computing the workbook (see the limits in "
+                         "docs/headless.md)") from None
     except OSError as exc:
         raise UsageError(f"-o {ns.output}: cannot write ({exc.strerror or exc})") from None
+    for line in res.warnings:
+        print(line, file=sys.stderr)
     for (sheet, ref), msg in res.messages.items():
-        print(f"{sheet}!{ref}: {msg}", file=sys.stderr)
+        if (sheet, ref) not in res.gaps:
+            print(f"{sheet}!{ref}: {msg}", file=sys.stderr)
+    for (sheet, ref), why in res.gaps.items():
+        if (sheet, ref) in res.kept:
+            print(f"{sheet}!{ref}: not computed: {why} (kept the value the file held)", file=sys.stderr)
+        else:
+            msg = res.messages.get((sheet, ref), f"#N/A not computed: {why}")
+            code, _, text = msg.partition(" ")
+            print(f"{sheet}!{ref}: {text} (now {code})", file=sys.stderr)
     if ns.json:
         obj = {f"{s}!{r}": _json_value(v) for (s, r), v in res.values.items()}
         json.dump(obj, sys.stdout, ensure_ascii=False)
         sys.stdout.write("\n")
     else:
-        print(f"computed {len(res.values)} formula cells, {len(res.messages)} with an error; "
-              f"wrote {ns.output}", file=sys.stderr)
-    return 0
+        print(f"computed {len(res.values) - len(res.gaps)} formula cells, {len(res.messages)} with an error, "
+              f"{len(res.gaps)} not computed; wrote {ns.output}", file=sys.stderr)
+    return 3 if res.gaps else 0
 
 
 #: plain stand-ins for characters a non-UTF-8 console may not have; anything else becomes "?"
@@ -195,7 +187,7 @@ def cmd_inputs(ns) -> int:
 
 
 def cmd_cases(ns) -> int:
-    from cellfuncs import cases
+    from cellfuncs.headless import cases
 
     return cases.run(ns)
 
