@@ -95,12 +95,16 @@ def _calls():
         for k, arg in enumerate(e.args):
             if not arg.optional:
                 continue
-            spelled = base[:k] + [_spelled(arg)] + base[k + 1:]
-            middle = base[:k] + [""] + base[k + 1:]
+            b = base
+            if arg.kind == "amounts" and k > 0 and e.args[k - 1].kind == "gas":
+                # amounts left out: the gas analysis is then the two-column range (names, amounts)
+                b = base[:k - 1] + ["Data!$J$1:$K$6"] + base[k:]
+            spelled = b[:k] + [_spelled(arg)] + b[k + 1:]
+            middle = b[:k] + [""] + b[k + 1:]
             out.append((f"{e.name}: {arg.name} as ,,", f"={e.name}({','.join(middle)})",
                         f"={e.name}({','.join(spelled)})"))
-            trailing_spelled = base[:k] + [_spelled(a) for a in e.args[k:]]
-            out.append((f"{e.name}: {arg.name} and after left out", f"={e.name}({','.join(base[:k])})",
+            trailing_spelled = b[:k] + [_spelled(a) for a in e.args[k:]]
+            out.append((f"{e.name}: {arg.name} and after left out", f"={e.name}({','.join(b[:k])})",
                         f"={e.name}({','.join(trailing_spelled)})"))
     return out
 

@@ -118,9 +118,10 @@ def shapes(tmp_path_factory):
     path = d / "shapes.xlsx"
     wb.save(path)
     # cached values in the other cells of E1:E3 (as every saved file has them)
+    # (in column order, before the K cell of the row, as a writer lays them out)
     _edit(path, "xl/worksheets/sheet1.xml", lambda x: re.sub(
-        r'(<row r="([23])"[^>]*>)(.*?)(</row>)',
-        lambda m: m.group(1) + m.group(3) + f'<c r="E{m.group(2)}"><v>999</v></c>' + m.group(4), x, flags=re.S))
+        r'(<row r="([23])"[^>]*>.*?)(<c r="K[23]")',
+        lambda m: m.group(1) + f'<c r="E{m.group(2)}"><v>999</v></c>' + m.group(3), x, flags=re.S))
     # the what-if data tables (openpyxl cannot write them)
     dt_part = _sheet_part(path, "DT")
 

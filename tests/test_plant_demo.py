@@ -95,7 +95,7 @@ def test_no_legacy_array_formulas_and_no_stray_header():
 def test_cases_over_the_demo_inputs():
     """`cellfuncs cases` runs the demo over its inputs (site, client water); the first case reproduces the
     committed workbook, a hotter site with a colder client circuit still closes the balance."""
-    from cellfuncs.cases import CaseRunner
+    from cellfuncs.headless.cases import CaseRunner
 
     runner = CaseRunner(str(BOOK), ["t_ambient", "rh_ambient", "t_water_in", "t_water_out"],
                         ["out_balance_check", "out_heat_to_client", "out_dump_heat"])
