@@ -153,6 +153,8 @@ def register() -> None:
         fn = _make(entry)
         funcs[entry.name.upper()] = fn
         funcs["_XLUDF." + entry.name.upper()] = fn
+        # the name LibreOffice writes for our Calc add-in's functions (cellfuncs.calc)
+        funcs["ORG.CELLFUNCS.CALC.CELLFUNCTIONS." + entry.name.upper()] = fn
     _STATE["registered"] = True
 
 
