@@ -13,6 +13,8 @@ Tasks:
    {"sheet": name, "path": pdf}} — open a workbook (as a user would: no forced recalculation
    unless "recalc"), read every formula cell; optionally save it (.xlsx) or print one sheet.
 
+* {"kind": "describe", "names": [...]} — the function wizard's entries for those names.
+
 A cell read is {"ref": "Sheet!A1", "formula": ..., "error": Calc error number (0 = none),
 "value": number or text, "text": what the cell shows}.
 """
@@ -27,6 +29,7 @@ import uno
 from com.sun.star.beans import PropertyValue
 
 FORMULA_CELLS = 16  # com.sun.star.sheet.CellFlags.FORMULA
+_STATE = {}
 
 
 def _props(**kw):
@@ -48,9 +51,8 @@ def _col(n):
 
 
 def clean_env():
-    """The environment without an activated virtual environment: LibreOffice's embedded
-    Python started from a shell with a venv first on PATH picked up that venv's Python
-    installation and failed (every add-in call ended in std::bad_alloc)."""
+    """The environment without the tests' virtual environment, as a desktop session would
+    start LibreOffice (the extension itself must find cellfuncs)."""
     env = dict(os.environ)
     venv = env.pop("VIRTUAL_ENV", None)
     for key in ("PYTHONHOME", "PYTHONPATH"):
@@ -83,7 +85,12 @@ def _start_once(profile, attempt):
                 _stop(proc)
                 return proc, None
             time.sleep(0.3)
-    desktop = ctx.ServiceManager.createInstanceWithContext("com.sun.star.frame.Desktop", ctx)
+    try:
+        desktop = ctx.ServiceManager.createInstanceWithContext("com.sun.star.frame.Desktop", ctx)
+    except Exception:
+        _stop(proc)
+        return proc, None
+    _STATE["ctx"] = ctx  # for the "describe" task
     return proc, desktop
 
 
@@ -163,6 +170,23 @@ def _cells(desktop, task):
         doc.close(True)
 
 
+def _describe(desktop, task):
+    """What Calc's function wizard knows of the functions whose names are listed."""
+    ctx = _STATE["ctx"]
+    descs = ctx.ServiceManager.createInstanceWithContext(
+        "com.sun.star.sheet.FunctionDescriptions", ctx)
+    wanted = set(task["names"])
+    out = []
+    for i in range(descs.Count):
+        props = {p.Name: p.Value for p in descs.getByIndex(i)}
+        if props.get("Name") in wanted:
+            out.append({"ref": props["Name"], "description": props.get("Description", ""),
+                        "category": props.get("Category"),
+                        "args": [[a.Name, a.Description, a.IsOptional]
+                                 for a in (props.get("Arguments") or ())]})
+    return out
+
+
 def _open(desktop, task):
     url = "file://" + os.path.abspath(task["path"])
     doc = desktop.loadComponentFromURL(url, "_blank", 0, _props(Hidden=True))
@@ -176,6 +200,8 @@ def _open(desktop, task):
         pdf = task.get("pdf")
         if pdf:
             sheets = doc.Sheets
+            if not sheets.hasByName(pdf["sheet"]):
+                raise KeyError("no sheet named %r" % pdf["sheet"])
             for i in range(sheets.Count):  # only visible sheets are printed
                 sheet = sheets.getByIndex(i)
                 sheet.IsVisible = sheet.Name == pdf["sheet"]
@@ -194,8 +220,8 @@ def main(job_path, result_path):
     try:
         for task in job["tasks"]:
             try:
-                results.append({"ok": True, "cells": (_cells if task["kind"] == "cells"
-                                                      else _open)(desktop, task)})
+                run = {"cells": _cells, "open": _open, "describe": _describe}[task["kind"]]
+                results.append({"ok": True, "cells": run(desktop, task)})
             except Exception as exc:  # reported to the test, which fails with it
                 results.append({"ok": False, "error": "%s: %s" % (type(exc).__name__, exc)})
     finally:

@@ -113,36 +113,60 @@ def _is_range(v) -> bool:
     return isinstance(v, (list, tuple))
 
 
+def _variants(entry):
+    """The catalogue example, and two bad inputs: its first number as text, and as -1e9."""
+    example = tuple(entry.example)
+    yield example
+    for i, arg in enumerate(entry.args[:len(example)]):
+        if arg.kind == "number" and not _is_range(example[i]):
+            for bad in ("x", -1e9):
+                yield example[:i] + (bad,) + example[i + 1:]
+            return
+
+
+def _expected(entry, values):
+    """What the shared adapter code gives: cells, or the Excel error value of the error."""
+    from cellfuncs.errors import CellInputError
+
+    try:
+        return adapt_call(entry, values)
+    except CellInputError as exc:
+        return exc.excel_error
+
+
 def example_sheet():
-    """Cells and formulas of a sheet holding every catalogue example, and the expected values."""
+    """Cells and formulas of a sheet holding every catalogue example (and two bad inputs per
+    function), and the values the adapters' shared code gives for them."""
     values, cells, expected = [], [], {}
     row = 0
     for entry in catalogue.entries():
         if not entry.example and entry.args:
             continue
-        want = adapt_call(entry, tuple(entry.example))
-        args, data_col, height = [], DATA_COLUMN, 1
-        for v in entry.example:
-            if _is_range(v):
-                rows = [list(r) if _is_range(r) else [r] for r in v]
-                width = max(len(r) for r in rows)
-                for i, r in enumerate(rows):
-                    for j, c in enumerate(r):
-                        if c is not None:
-                            values.append([f"{_col(data_col + j)}{row + i + 1}", c])
-                args.append(f"{_col(data_col)}{row + 1}:{_col(data_col + width - 1)}{row + len(rows)}")
-                data_col += width + 1
-                height = max(height, len(rows))
-            else:
-                args.append(_literal(v))
-        shape = (len(want), len(want[0])) if isinstance(want, list) else (1, 1)
-        formula = f"={entry.name}(" + ";".join(args) + ")"
-        cells.append([f"A{row + 1}", formula, shape[0], shape[1]])
-        grid = want if isinstance(want, list) else [[want]]
-        for i, r in enumerate(grid):
-            for j, c in enumerate(r):
-                expected[f"Sheet1!{_col(j)}{row + i + 1}"] = (entry.name, c)
-        row += max(height, shape[0]) + 1
+        for example in _variants(entry):
+            want = _expected(entry, example)
+            args, data_col, height = [], DATA_COLUMN, 1
+            for v in example:
+                if _is_range(v):
+                    rows = [list(r) if _is_range(r) else [r] for r in v]
+                    width = max(len(r) for r in rows)
+                    for i, r in enumerate(rows):
+                        for j, c in enumerate(r):
+                            if c is not None:
+                                values.append([f"{_col(data_col + j)}{row + i + 1}", c])
+                    args.append(f"{_col(data_col)}{row + 1}:"
+                                f"{_col(data_col + width - 1)}{row + len(rows)}")
+                    data_col += width + 1
+                    height = max(height, len(rows))
+                else:
+                    args.append(_literal(v))
+            shape = (len(want), len(want[0])) if isinstance(want, list) else (1, 1)
+            formula = f"={entry.name}(" + ";".join(args) + ")"
+            cells.append([f"A{row + 1}", formula, shape[0], shape[1]])
+            grid = want if isinstance(want, list) else [[want]]
+            for i, r in enumerate(grid):
+                for j, c in enumerate(r):
+                    expected[f"Sheet1!{_col(j)}{row + i + 1}"] = (entry.name, c)
+            row += max(height, shape[0]) + 1
     return values, cells, expected
 
 
@@ -244,6 +268,7 @@ def _lo_runs(work: Path) -> dict:
     calc_made = work / "calc_made.xlsx"
     tasks = [{"kind": "cells", "values": values, "cells": cells, "save": str(calc_made)}]
     tasks += [{"kind": "open", "path": str(p), "recalc": True} for p in copies]
+    tasks.append({"kind": "describe", "names": [e.name for e in catalogue.entries()]})
     got = _drive(work / "profile_addin", tasks, work, "addin")
 
     bare = work / "profile_bare"
@@ -253,7 +278,7 @@ def _lo_runs(work: Path) -> dict:
               "pdf": {"sheet": "Results", "path": str(pdf)}} for p, pdf in zip(copies, pdfs)]
     plain = _drive(bare, tasks, work, "bare")
     return {"examples": got[0], "expected": expected, "calc_made": calc_made,
-            "demos": dict(zip((p.name for p in DEMOS), got[1:])),
+            "demos": dict(zip((p.name for p in DEMOS), got[1:-1])), "wizard": got[-1],
             "plain": dict(zip((p.name for p in DEMOS), plain)),
             "pdfs": dict(zip((p.name for p in DEMOS), pdfs)), "work": work}
 
@@ -269,6 +294,24 @@ def test_every_catalogue_example_computes_in_calc_as_headless(lo):
         if why:
             bad.append(f"{ref} {name}: {why}")
     assert not bad, "\n".join(bad[:20])
+
+
+def test_function_wizard_shows_catalogue_text(lo):
+    """Calc's function wizard lists every function with the catalogue's description and help."""
+    from cellfuncs.calc.build import functions_table
+
+    table = functions_table()
+    wizard = lo["wizard"]
+    assert sorted(wizard) == sorted(table)
+    for name, info in table.items():
+        shown = wizard[name]
+        assert shown["description"] == info["description"], name
+        assert [a[:2] for a in shown["args"]] == info["args"], name
+        assert entry_description_starts(name, shown["description"])
+
+
+def entry_description_starts(name, text):
+    return text.startswith(catalogue.by_name(name).description)
 
 
 def test_every_catalogue_function_computes_in_calc(lo):
