@@ -218,7 +218,8 @@ def _same(lo: dict, want) -> str | None:
     from cellfuncs.xlsx import ErrorText
 
     if isinstance(want, ErrorText) or (isinstance(want, str) and want in CALC_ERRORS.values()):
-        got = CALC_ERRORS.get(lo["error"], f"Err:{lo['error']}") if lo["error"] else lo["value"]
+        # what Calc shows in the cell (its own text for the error number)
+        got = lo["text"] if lo["error"] else lo["value"]
         return None if got == str(want) else f"{got!r} != {str(want)!r}"
     if lo["error"]:
         return f"Calc shows {CALC_ERRORS.get(lo['error'], 'Err:%d' % lo['error'])}, expected {want!r}"
