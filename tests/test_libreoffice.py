@@ -28,8 +28,10 @@ import json
 import math
 import os
 import shutil
+import re
 import subprocess
 import sys
+import zipfile
 from pathlib import Path
 
 import pytest
@@ -270,7 +272,20 @@ def _lo_runs(work: Path) -> dict:
     tasks = [{"kind": "cells", "values": values, "cells": cells, "save": str(calc_made)}]
     tasks += [{"kind": "open", "path": str(p), "recalc": True} for p in copies]
     tasks.append({"kind": "describe", "names": [e.name for e in catalogue.entries()]})
+    tasks.append({"kind": "open", "path": str(calc_made), "recalc": True})
     got = _drive(work / "profile_addin", tasks, work, "addin")
+
+    # an extension that says it was built by another Python (3.0): each function shows the text
+    other = work / "other_python.oxt"
+    with zipfile.ZipFile(oxt) as src, zipfile.ZipFile(other, "w") as dst:
+        for name in src.namelist():
+            data = src.read(name)
+            if name.endswith(".py"):
+                data = re.sub(rb"'python': \[\d+, \d+, \d+\]", b"'python': [3, 0, 0]", data)
+            dst.writestr(name, data)
+    _unopkg_add(other, work / "profile_other")
+    mismatch = _drive(work / "profile_other", [{"kind": "cells", "cells": [
+        ["A1", "=HX_LMTD(100;60;30;40.2)", 1, 1], ["B1", "=GAS_COMPONENTS()", 2, 1]]}], work, "other")
 
     bare = work / "profile_bare"
     bare.mkdir()
@@ -279,7 +294,8 @@ def _lo_runs(work: Path) -> dict:
               "pdf": {"sheet": "Results", "path": str(pdf)}} for p, pdf in zip(copies, pdfs)]
     plain = _drive(bare, tasks, work, "bare")
     return {"examples": got[0], "expected": expected, "calc_made": calc_made,
-            "demos": dict(zip((p.name for p in DEMOS), got[1:-1])), "wizard": got[-1],
+            "demos": dict(zip((p.name for p in DEMOS), got[1:-2])), "wizard": got[-2],
+            "calc_made_in_calc": got[-1], "other_python": mismatch[0],
             "plain": dict(zip((p.name for p in DEMOS), plain)),
             "pdfs": dict(zip((p.name for p in DEMOS), pdfs)), "work": work}
 
@@ -328,6 +344,26 @@ def test_every_catalogue_function_computes_in_calc(lo):
         pytest.xfail(f"pending (catalogue owners): no catalogue example for {', '.join(missing)} "
                      "and no demo uses them, so Calc never computes them here")
     assert not missing, f"never computed in Calc (give them a catalogue example): {missing}"
+
+
+def test_workbook_saved_by_calc_reopens_in_calc(lo):
+    """Calc -> .xlsx -> Calc: the names Calc wrote link again and compute the same values."""
+    again, cells = lo["calc_made_in_calc"], lo["examples"]
+    bad = [f"{ref}: {why}" for ref, cell in cells.items()
+           if (why := _same(again.get(ref, {"error": 0, "value": "missing"}),
+                            cell["text"] if cell["error"] else cell["value"]))]
+    assert not bad, "\n".join(bad[:20])
+
+
+def test_extension_built_by_another_python_says_what_to_do(lo):
+    """Every function shows one text naming both versions and the command to run."""
+    cells = lo["other_python"]
+    here = "%d.%d" % sys.version_info[:2]
+    for ref in ("Sheet1!A1", "Sheet1!B1"):
+        text = cells[ref]["value"]
+        assert text.startswith(f"#VALUE! cellfuncs: LibreOffice runs Python {here} but this "
+                               "extension was built with Python 3.0"), text
+        assert "cellfuncs calc-extension" in text and "unopkg add" in text
 
 
 def test_workbook_made_in_calc_recalculates_headless(lo):
