@@ -7,8 +7,8 @@ handed over.  The rules, the same for both:
 * a number argument takes an int or float (a 1×1 range counts); booleans,
   text (even numeric text such as ``"12"``), NaN and infinities are refused;
 * a blank, ``None`` or ``""`` for an optional argument means "use the default";
-  for option and text arguments ``0`` means the same (the headless engine hands
-  an omitted argument ``F(1,,3)`` over as 0);
+  for option, text and range arguments ``0`` means the same (the headless engine
+  and LibreOffice Calc hand an omitted argument ``F(1,,3)`` over as 0);
 * option words are matched case-insensitively with surrounding spaces ignored;
 * a range argument becomes a tuple of rows of cells (float, str or ``None``);
   a scalar becomes ``((v,),)`` and a 1-D list a column;
@@ -145,7 +145,10 @@ def _range(arg, v):
 def _one(arg, v):
     kind = arg.kind
     if kind in RANGE_KINDS:
-        if v is None or (isinstance(v, str) and v.strip() == ""):
+        # an optional range given 0 is what LibreOffice Calc hands over for an argument left
+        # out in the middle, F(A1:B6;;"x") (a range can't be the number 0)
+        if v is None or (isinstance(v, str) and v.strip() == "") or (
+                (arg.optional or kind == "amounts") and type(v) in _NUMBER_TYPES and v == 0):
             if kind == "amounts":  # may always be left empty (two-column components range)
                 return None
             if arg.optional:

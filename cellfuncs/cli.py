@@ -192,6 +192,21 @@ def cmd_cases(ns) -> int:
     return cases.run(ns)
 
 
+def cmd_calc_extension(ns) -> int:
+    from cellfuncs.calc.build import build_extension
+
+    if not ns.output.lower().endswith(".oxt"):
+        raise UsageError(f"-o {ns.output}: the extension file name must end in .oxt")
+    check_output_path(ns.output)
+    try:
+        n = build_extension(ns.output)
+    except OSError as exc:
+        raise UsageError(f"-o {ns.output}: cannot write ({exc.strerror or exc})") from None
+    print(f"wrote {ns.output} ({n} functions, for Python {sys.version_info[0]}.{sys.version_info[1]}); "
+          f"install it with: unopkg add --force {ns.output}", file=sys.stderr)
+    return 0
+
+
 def build_parser() -> argparse.ArgumentParser:
     from cellfuncs import __version__
 
@@ -236,6 +251,10 @@ def build_parser() -> argparse.ArgumentParser:
     c.add_argument("--outputs", help="comma-separated outputs (default: defined names starting with out_)")
     c.add_argument("--workers", type=int, default=1, help="processes to spread the cases over")
     c.set_defaults(func=cmd_cases)
+
+    x = sub.add_parser("calc-extension", help="build the LibreOffice Calc extension (.oxt)")
+    x.add_argument("-o", "--output", required=True, help="extension file (.oxt)")
+    x.set_defaults(func=cmd_calc_extension)
     return p
 
 

@@ -23,6 +23,11 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass, field
 
+#: prefixes a spreadsheet program writes before an add-in function's name: Excel's for a
+#: function it did not know when saving, and the name LibreOffice Calc writes for the
+#: functions of our Calc extension (cellfuncs.calc)
+_ADDIN_PREFIXES = ("_XLUDF.", "ORG.CELLFUNCS.CALC.CELLFUNCTIONS.")
+
 __all__ = ["TAG", "Rewritten", "rewrite", "split_sheet_ref"]
 
 #: first character of the tag argument (a private-use character, never typed in a workbook)
@@ -170,7 +175,7 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None, sheet
     s = text[1:] if text.startswith("=") else text
     if not _SPECIAL.search(s):
         calls = {m.group(1).upper() for m in _CALL.finditer(s)}
-        if not (calls & catalogue_names) and not any(c.startswith("_XLUDF.") for c in calls):
+        if not (calls & catalogue_names) and not any(c.startswith(_ADDIN_PREFIXES) for c in calls):
             # the common case: no quotes, brackets, sheet prefixes or catalogue calls
             res = Rewritten(s, functions={c[7:] if c.startswith("_XLFN.") else c for c in calls})
             for m in _RANGE.finditer(s):
@@ -276,8 +281,9 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None, sheet
                         continue
                 if end < n and s[end] == "(":
                     name = word.upper()
-                    if name.startswith("_XLUDF."):
-                        name = name[len("_XLUDF."):]
+                    for prefix in _ADDIN_PREFIXES:
+                        if name.startswith(prefix):
+                            name = name[len(prefix):]
                     if name.startswith("_XLFN."):
                         name = name[len("_XLFN."):]
                     res.functions.add(name)
