@@ -57,7 +57,13 @@ def page_setup(ws, print_area: bool = True) -> None:
     """Landscape when wide, fit to one page wide (any height); print area over the used cells."""
     last_col, last_row = ws.max_column, ws.max_row
     if print_area:
-        ws.print_area = f"A1:{get_column_letter(last_col)}{last_row}"
+        # a check text computed in the last column runs on into the empty columns to its right:
+        # the printed area takes in about 45 characters' width more so the text is not cut
+        spare, extra = 0.0, 0
+        while spare < 45:
+            extra += 1
+            spare += ws.column_dimensions[get_column_letter(last_col + extra)].width or 9
+        ws.print_area = f"A1:{get_column_letter(last_col + extra)}{last_row}"
     width = sum((ws.column_dimensions[get_column_letter(i)].width or 9) for i in range(1, last_col + 1))
     ws.page_setup.orientation = "landscape" if width > 110 else "portrait"
     ws.page_setup.paperSize = ws.PAPERSIZE_A4
