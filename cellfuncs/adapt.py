@@ -18,6 +18,15 @@ handed over.  The rules, the same for both:
   position and no ``amounts`` position.  Results of functions taking a gas
   analysis are cached on their coerced arguments (a sheet asks the same gas
   many times);
+* a stage list (``stages``: one row or one column of numbers, a blank is a
+  stage with nothing in it) becomes a tuple of floats and ``None``, laid out
+  results follow it: a 1-D result of an ``array`` function is returned as a
+  row or a column like the function's first stage list; a list of words
+  (``words``) becomes a tuple of stripped texts and ``None``; ``numbers`` (any
+  block, blanks skipped) a tuple of floats; a table ``axis`` a tuple of floats
+  (trailing blanks dropped) and a ``table`` a tuple of rows of floats and
+  ``None``.  Text where a number belongs is refused naming the argument and the
+  cell;
 * an error the core raises names its own parameter (``lambda_: ...``); the
   message is given back with the catalogue's name for that position
   (``air_ratio: ...``), so a cell always speaks the glossary's names.
@@ -142,6 +151,117 @@ def _range(arg, v):
     return ((_cell(v),),)
 
 
+class CellList(tuple):
+    """A tuple of the cells of a one-row or one-column range; ``layout`` is
+    ``"row"`` or ``"column"`` (how a result following it is laid out)."""
+
+    __slots__ = ()
+    layout = "row"
+
+
+class _ColumnList(CellList):
+    __slots__ = ()
+    layout = "column"
+
+
+def _line(name: str, rows: tuple):
+    """The cells of a one-row or one-column range and its layout."""
+    n_rows = len(rows)
+    n_cols = max((len(r) for r in rows), default=0)
+    if n_rows == 0 or n_cols == 0:
+        raise CellTypeError(f"{name}: no cells given; select one row or one column")
+    if n_rows > 1 and n_cols > 1:
+        raise CellTypeError(f"{name}: a {n_rows}×{n_cols} block was given; select one row or one column")
+    if n_rows == 1:
+        return list(rows[0]), "row"
+    return [r[0] if r else None for r in rows], "column"
+
+
+def _cell_number(name: str, i: int, c):
+    if c is None or (isinstance(c, str) and c.strip() == ""):
+        return None
+    if isinstance(c, bool) or not isinstance(c, _NUMBER_TYPES):
+        raise CellTypeError(f"{name}: cell {i} {c!r} is not a number")
+    if not math.isfinite(c):
+        raise CellInputError(f"{name}: cell {i} {c} is not a finite number")
+    return float(c)
+
+
+def _stages(name: str, rows: tuple) -> CellList:
+    """A stage list: numbers and None (blank), laid out as given."""
+    cells, lay = _line(name, rows)
+    out = [_cell_number(name, i, c) for i, c in enumerate(cells, start=1)]
+    return (CellList if lay == "row" else _ColumnList)(out)
+
+
+def _words(name: str, rows: tuple) -> CellList:
+    """A list of words: stripped text, None for a blank; a number is handed on as it is
+    (the core names it as a wrong word)."""
+    cells, lay = _line(name, rows)
+    out = [None if c is None or (isinstance(c, str) and c.strip() == "") else
+           (c.strip() if isinstance(c, str) else c) for c in cells]
+    return (CellList if lay == "row" else _ColumnList)(out)
+
+
+def _numbers(name: str, rows: tuple) -> tuple:
+    """Every number of a block of any shape, row by row; blanks skipped."""
+    out = []
+    for i, c in enumerate(_chain(rows), start=1):
+        f = _cell_number(name, i, c)
+        if f is not None:
+            out.append(f)
+    return tuple(out)
+
+
+def _axis(name: str, rows: tuple) -> tuple:
+    """A table axis or column of values: one row or column, trailing blanks dropped."""
+    if not rows or not rows[0]:
+        raise CellInputError(f"{name}: the range is empty")
+    if len(rows) > 1 and max(len(r) for r in rows) > 1:
+        raise CellInputError(f"{name}: a range of {len(rows)} rows and {max(len(r) for r in rows)} "
+                             "columns; give one column or one row")
+    if len(rows) == 1:
+        cells, word = list(rows[0]), "column"
+    else:
+        cells, word = [r[0] if r else None for r in rows], "row"
+    while cells and is_blank(cells[-1]):
+        cells.pop()
+    if not cells:
+        raise CellInputError(f"{name}: the range holds only blanks")
+    vals = []
+    for i, c in enumerate(cells, start=1):
+        if is_blank(c):
+            raise CellInputError(f"{name}: {word} {i} is blank inside the table (only trailing "
+                                 "blanks are ignored)")
+        if isinstance(c, bool) or not isinstance(c, _NUMBER_TYPES):
+            raise CellTypeError(f"{name}: {word} {i} holds {c!r}, not a number")
+        if not math.isfinite(c):
+            raise CellInputError(f"{name}: {word} {i} holds {c}, not a finite number")
+        vals.append(float(c))
+    return (CellList if word == "column" else _ColumnList)(vals)
+
+
+def _table(name: str, rows: tuple) -> tuple:
+    """A block of numbers: rows of floats and None (blank); text refused naming the cell."""
+    out = []
+    for r, row in enumerate(rows, start=1):
+        vals = []
+        for c_i, c in enumerate(row, start=1):
+            if is_blank(c):
+                vals.append(None)
+            elif isinstance(c, bool) or not isinstance(c, _NUMBER_TYPES):
+                raise CellTypeError(f"{name}: row {r}, column {c_i} holds {c!r}, not a number")
+            elif not math.isfinite(c):
+                raise CellInputError(f"{name}: row {r}, column {c_i} holds {c}, not a finite number")
+            else:
+                vals.append(float(c))
+        out.append(tuple(vals))
+    return tuple(out)
+
+
+_LISTS = {"stages": _stages, "words": _words, "numbers": _numbers, "axis": _axis, "table": _table}
+
+
 def _one(arg, v):
     kind = arg.kind
     if kind in RANGE_KINDS:
@@ -154,7 +274,9 @@ def _one(arg, v):
             if arg.optional:
                 return arg.default
             raise CellTypeError(f"{arg.name}: a range is required (got a blank)")
-        return _range(arg, v)
+        rows = _range(arg, v)
+        shaper = _LISTS.get(kind)
+        return rows if shaper is None else shaper(arg.name, rows)
     v = _scalar(arg.name, v)
     if is_blank(v) or (kind in ("option", "text") and isinstance(v, _NUMBER_TYPES)
                        and not isinstance(v, bool) and v == 0):
@@ -382,8 +504,12 @@ def _check_out(entry, v):
     return f
 
 
-def result_to_cells(entry: CellFunction, result):
-    """A scalar, or a list of rows (2-D) for multi-cell results."""
+def result_to_cells(entry: CellFunction, result, layout: str | None = None):
+    """A scalar, or a list of rows (2-D) for multi-cell results.
+
+    A 1-D result is a column when ``layout`` (the layout of the function's first
+    stage list) or else the entry's shape says ``"column"``; a row otherwise.
+    """
     if type(result) is float:
         if _isfinite(result):
             return result
@@ -392,11 +518,11 @@ def result_to_cells(entry: CellFunction, result):
         if result and isinstance(result[0], (list, tuple)):
             return [[_check_out(entry, c) for c in row] for row in result]
         cells = [_check_out(entry, c) for c in result]
-        if entry.shape == "column":
+        if (layout or entry.shape) == "column":
             return [[c] for c in cells]
         return [cells]
     if hasattr(result, "tolist") and getattr(result, "ndim", 0) > 0:
-        return result_to_cells(entry, result.tolist())
+        return result_to_cells(entry, result.tolist(), layout)
     return _check_out(entry, result)
 
 
@@ -413,8 +539,11 @@ def call(entry: CellFunction, values: tuple):
     internal error and failed by the test suite).
     """
     coerced = coerce_args(entry, values)
+    layout = None
+    if entry.shape == "array":
+        layout = next((v.layout for v in coerced if isinstance(v, CellList)), None)
     try:
-        return result_to_cells(entry, _call_core(entry, coerced))
+        return result_to_cells(entry, _call_core(entry, coerced), layout)
     except CellInputError as exc:
         renamed = _rename(exc, core_names(entry))
         if renamed is exc:

@@ -194,7 +194,7 @@ def test_plain_water_does_not_import_coolprop():
         "from cellfuncs.recovery import water, chain\n"
         "water.hw_cp(60.0); water.hw_density(90.0)\n"
         "v = water.hw_flow(1000.0, 70.0, 90.0); water.hw_duty(v, 70.0, 90.0)\n"
-        "chain.cell_chain(70.0, 40.0, ((300.0,), (500.0,)))\n"
+        "chain.hw_chain(70.0, 40.0, (300.0, 500.0))\n"
         "from cellfuncs.catalogue import by_name\n"
         "assert 'CoolProp' not in sys.modules, sorted(m for m in sys.modules if 'CoolProp' in m)\n"
         "print('ok')\n"

@@ -340,9 +340,6 @@ def test_every_catalogue_function_computes_in_calc(lo):
         for cell in cells.values():
             seen.update(n.upper() for n in re.findall(r"CELLFUNCTIONS\.(\w+)\(", cell["formula"]))
     missing = sorted({e.name for e in catalogue.entries()} - seen)
-    if missing:
-        pytest.xfail(f"pending (catalogue owners): no catalogue example for {', '.join(missing)} "
-                     "and no demo uses them, so Calc never computes them here")
     assert not missing, f"never computed in Calc (give them a catalogue example): {missing}"
 
 

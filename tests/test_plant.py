@@ -12,8 +12,18 @@ from hypothesis import strategies as st
 
 from vectors import approx, params
 
+from cellfuncs import adapt, catalogue
 from cellfuncs.errors import CellInputError, CellTypeError
 from cellfuncs.recovery.plant import chp_balance, chp_heat_rate, chp_pes
+
+
+def _cell(name):
+    """The catalogue function NAME as a cell calls it (the shared adapter: ranges, blanks, errors)."""
+    entry = catalogue.by_name(name)
+    return lambda *values: adapt.call(entry, values)
+
+
+CHP_BALANCE = _cell("CHP_BALANCE")
 
 
 def _heat_range(text):
@@ -36,7 +46,7 @@ def test_heat_rate(row):
 
 @pytest.mark.parametrize("row", params("plant", "CHP_BALANCE"))
 def test_balance(row):
-    got = chp_balance(row["fuel_kw"], row["electrical_kw"], _heat_range(row["heat_kw"]), row["output"])
+    got = CHP_BALANCE(row["fuel_kw"], row["electrical_kw"], _heat_range(row["heat_kw"]), row["output"])
     assert got == approx(row)
 
 
@@ -44,7 +54,7 @@ def test_balance_range_shapes():
     """A row, a column, a block and a flat list give the same sum."""
     for rng in (((300.0, None, 200.0),), ((300.0,), (200.0,)), ((300.0, 100.0), (None, 100.0)),
                 [300.0, 200.0], 500.0):
-        assert chp_balance(1000.0, 0.0, rng, "thermal") == pytest.approx(0.5, rel=1e-15)
+        assert CHP_BALANCE(1000.0, 0.0, rng, "thermal") == pytest.approx(0.5, rel=1e-15)
 
 
 @pytest.mark.parametrize("call,name,err", [
@@ -53,11 +63,11 @@ def test_balance_range_shapes():
     (lambda: chp_pes(0.4, -0.1, 0.525, 0.9), "thermal_efficiency:", CellInputError),
     (lambda: chp_pes(0.4, 0.45, 0.0, 0.9), "ref_electrical_efficiency:", CellInputError),
     (lambda: chp_pes(0.4, 0.45, 0.525, 1.5), "ref_thermal_efficiency:", CellInputError),
-    (lambda: chp_balance(0.0, 100.0, ((1.0,),)), "fuel_power_kw:", CellInputError),
-    (lambda: chp_balance(1000.0, -1.0, ((1.0,),)), "electrical_kw:", CellInputError),
-    (lambda: chp_balance(1000.0, 100.0, ((1.0, -5.0),)), "heat_kw:", CellInputError),
-    (lambda: chp_balance(1000.0, 100.0, ((1.0, "x"),)), "heat_kw:", CellTypeError),
-    (lambda: chp_balance(1000.0, 100.0, ((1.0,),), "gross"), "output:", CellTypeError),
+    (lambda: CHP_BALANCE(0.0, 100.0, ((1.0,),)), "fuel_power_kw:", CellInputError),
+    (lambda: CHP_BALANCE(1000.0, -1.0, ((1.0,),)), "electrical_kw:", CellInputError),
+    (lambda: CHP_BALANCE(1000.0, 100.0, ((1.0, -5.0),)), "heat_kw:", CellInputError),
+    (lambda: CHP_BALANCE(1000.0, 100.0, ((1.0, "x"),)), "heat_kw:", CellTypeError),
+    (lambda: chp_balance(1000.0, 100.0, (1.0,), "gross"), "output:", CellTypeError),
 ])
 def test_bad_input(call, name, err):
     with pytest.raises(err) as e:
@@ -80,6 +90,6 @@ def test_pes_monotonic(el, th, d):
 def test_balance_parts_add_up(fuel, el, heats):
     el_kw = el * fuel
     rng = (tuple(heats),)
-    parts = [chp_balance(fuel, el_kw, rng, o) for o in ("electrical", "thermal", "unaccounted")]
+    parts = [CHP_BALANCE(fuel, el_kw, rng, o) for o in ("electrical", "thermal", "unaccounted")]
     assert sum(parts) == pytest.approx(1.0, rel=1e-9)
-    assert chp_balance(fuel, el_kw, rng) == pytest.approx(parts[0] + parts[1], rel=1e-12, abs=1e-15)
+    assert CHP_BALANCE(fuel, el_kw, rng) == pytest.approx(parts[0] + parts[1], rel=1e-12, abs=1e-15)

@@ -18,12 +18,12 @@ from vectors import approx, params
 
 from cellfuncs.errors import CellInputError, CellTypeError
 from cellfuncs.recovery import water
-from cellfuncs.recovery.chain import cell_chain_check, cell_chain_rate, rate_chain_water
+from cellfuncs import adapt, catalogue
+from cellfuncs.recovery.chain import rate_chain_water
 from cellfuncs.recovery.drycooler import drycooler_air_flow, drycooler_ua
-from cellfuncs.recovery.engine_loop import cell_hw_engine_loop, engine_loop
+from cellfuncs.recovery.engine_loop import engine_loop
 from cellfuncs.gas.composition import parse_composition
 from cellfuncs.recovery.exhaust import exhaust_heat
-from cellfuncs.recovery.exhaust_loss import cell_exh_loss
 from cellfuncs.recovery.plant import chp_balance_check, chp_pes, grid_loss_factor, pes_reference
 
 METHANE = ((("methane",),), ((100.0,),))
@@ -31,11 +31,22 @@ NG = ((("methane",), ("ethane",), ("propane",), ("nitrogen",), ("carbon dioxide"
       ((92.0,), (4.5,), (1.0,), (1.5,), (1.0,)))
 
 
+def _cell(name):
+    """The catalogue function NAME as a cell calls it (the shared adapter: ranges, layout, errors)."""
+    entry = catalogue.by_name(name)
+    return lambda *values: adapt.call(entry, values)
+
+
+HW_ENGINE_LOOP, HW_CHAIN_RATE, HW_CHAIN_CHECK = (_cell("HW_ENGINE_LOOP"), _cell("HW_CHAIN_RATE"),
+                                                 _cell("HW_CHAIN_CHECK"))
+EXH_LOSS, CHP_BALANCE_CHECK = _cell("EXH_LOSS"), _cell("CHP_BALANCE_CHECK")
+
+
 # ---- vectors from reference libraries ---------------------------------------------
 
 @pytest.mark.parametrize("row", params("plant", "HW_ENGINE_LOOP"))
 def test_engine_loop_vectors(row):
-    got = cell_hw_engine_loop(row["duty_kw"], row["t_engine_in_max"], row["engine_flow_m3_h"], row["t_water_in"],
+    got = HW_ENGINE_LOOP(row["duty_kw"], row["t_engine_in_max"], row["engine_flow_m3_h"], row["t_water_in"],
                               row["water_flow_m3_h"], row["ua_kw_k"], row["arrangement"], row["result"],
                               row["glycol_fraction"] or 0.0, "ethylene")
     assert got == approx(row)
@@ -43,7 +54,7 @@ def test_engine_loop_vectors(row):
 
 @pytest.mark.parametrize("row", params("plant", "EXH_LOSS"))
 def test_exh_loss_vectors(row):
-    got = cell_exh_loss(row["exhaust_flow_kg_h"], row["t_stack"], row["air_ratio"], *METHANE, row["t_reference"],
+    got = EXH_LOSS(row["exhaust_flow_kg_h"], row["t_stack"], row["air_ratio"], *METHANE, row["t_reference"],
                         25.0, row["rh_ambient"], row["p_ambient_bar"])
     assert got == approx(row)
 
@@ -106,10 +117,10 @@ def test_engine_loop_near_outlet_sends_nearly_all_to_dump():
 
 
 def test_engine_loop_all_row_and_results():
-    row = cell_hw_engine_loop(800.0, 82.0, 60.0, 70.0, 40.0, 40.0, "counter", "all")
+    row = HW_ENGINE_LOOP(800.0, 82.0, 60.0, 70.0, 40.0, 40.0, "counter", "all")
     assert len(row) == 1 and len(row[0]) == 4
     for k, word in enumerate(("to_client", "dump", "t_water_out", "t_engine_out")):
-        assert cell_hw_engine_loop(800.0, 82.0, 60.0, 70.0, 40.0, 40.0, "counter", word) == row[0][k]
+        assert HW_ENGINE_LOOP(800.0, 82.0, 60.0, 70.0, 40.0, 40.0, "counter", word) == row[0][k]
 
 
 @settings(max_examples=150, deadline=None)
@@ -145,21 +156,21 @@ def test_chain_with_loop_never_gives_more_than_the_duty(order):
     th, ch, ua, kinds, duties = _mixed(order)
     args = (60.0, 40.0, th, ch, ua, "counter")
     extra = ("ethylene", kinds, duties, ((82.0,),), ((60.0,),))
-    duty = cell_chain_rate(*args, "duty", 0.0, *extra)[0]
-    dump = cell_chain_rate(*args, "dump", 0.0, *extra)[0]
+    duty = HW_CHAIN_RATE(*args, "duty", 0.0, *extra)[0]
+    dump = HW_CHAIN_RATE(*args, "dump", 0.0, *extra)[0]
     k = order.index("loop")
     assert duty[k] <= 800.0 and duty[k] + dump[k] == pytest.approx(800.0, rel=1e-12)
     assert dump[1 - k] == 0.0
-    total = cell_chain_rate(*args, "total_dump", 0.0, *extra)
+    total = HW_CHAIN_RATE(*args, "total_dump", 0.0, *extra)
     assert total == pytest.approx(dump[k], rel=1e-15)
     for s in (1, 2):
-        assert cell_chain_rate(*args, "duty", 0.0, *extra, s) == duty[s - 1]
+        assert HW_CHAIN_RATE(*args, "duty", 0.0, *extra, s) == duty[s - 1]
 
 
 def test_chain_loop_stage_equals_engine_loop():
     """A loop as stage 1 of a chain is HW_ENGINE_LOOP with the chain's return and flow."""
     th, ch, ua, kinds, duties = _mixed(("loop", "exh"))
-    d = cell_chain_rate(60.0, 40.0, th, ch, ua, "counter", "duty", 0.0, "ethylene", kinds, duties,
+    d = HW_CHAIN_RATE(60.0, 40.0, th, ch, ua, "counter", "duty", 0.0, "ethylene", kinds, duties,
                         ((82.0,),), ((60.0,),))[0][0]
     assert d == engine_loop(800.0, 82.0, 60.0, 60.0, 40.0, 40.0)["to_client"]
 
@@ -168,7 +179,7 @@ def test_chain_loop_after_hot_water_dumps_all():
     """Water reaching a loop hotter than its engine outlet gets nothing; the duty goes to the dump."""
     th, ch, ua, kinds, duties = ((445.0, None),), ((5.0, None),), ((10.0, 40.0),), (("stream", "loop"),), \
         ((None, 800.0),)
-    dump = cell_chain_rate(60.0, 40.0, th, ch, ua, "counter", "dump", 0.0, "ethylene", kinds, duties,
+    dump = HW_CHAIN_RATE(60.0, 40.0, th, ch, ua, "counter", "dump", 0.0, "ethylene", kinds, duties,
                            ((82.0,),), ((60.0,),))[0]
     assert dump[1] == 800.0
 
@@ -198,14 +209,14 @@ def test_chain_duties_plus_dump_equal_source_heat(q1, q2, ua1, ua2, ua3, flow, t
 
 def test_chain_check_both_ends():
     """Hot end: water out vs source in − approach; cold end: source out vs water in + approach."""
-    ok = cell_chain_check(60.0, 50.0, ((400.0, 300.0),), ((95.0, 450.0),), 5.0, 0.0, "ethylene", ((82.0, 120.0),))
+    ok = HW_CHAIN_CHECK(60.0, 50.0, ((400.0, 300.0),), ((95.0, 450.0),), 5.0, 0.0, "ethylene", ((82.0, 120.0),))
     assert ok == "OK"
     # the engine inlet limit 62 °C is below the 60 °C return + 5 K: cold end fails at stage 1
-    text = cell_chain_check(60.0, 50.0, ((400.0, 300.0),), ((95.0, 450.0),), 5.0, 0.0, "ethylene",
+    text = HW_CHAIN_CHECK(60.0, 50.0, ((400.0, 300.0),), ((95.0, 450.0),), 5.0, 0.0, "ethylene",
                             ((62.0, 120.0),))
     assert text.startswith("stage 1 cold end:") and "65" in text
     # stage 2's exhaust leaves at 70 °C but meets water at about 66.9 °C + 5 K
-    text = cell_chain_check(60.0, 50.0, ((400.0, 300.0),), ((95.0, 450.0),), 5.0, 0.0, "ethylene",
+    text = HW_CHAIN_CHECK(60.0, 50.0, ((400.0, 300.0),), ((95.0, 450.0),), 5.0, 0.0, "ethylene",
                             ((82.0, 70.0),))
     assert text.startswith("stage 2 cold end:")
     assert len(text) <= 255
@@ -218,13 +229,13 @@ def test_chain_check_both_ends():
     (lambda: engine_loop(800.0, 82.0, 60.0, 60.0, 40.0, -1.0), "ua_kw_k:"),
     (lambda: engine_loop(800.0, 140.0, 60.0, 60.0, 40.0, 40.0), "t_engine_in_max:"),
     (lambda: engine_loop(5000.0, 120.0, 5.0, 60.0, 40.0, 40.0), "duty_kw:"),
-    (lambda: cell_chain_rate(60.0, 40.0, ((None,),), ((None,),), ((40.0,),), "counter", "duty", 0.0, "ethylene",
+    (lambda: HW_CHAIN_RATE(60.0, 40.0, ((None,),), ((None,),), ((40.0,),), "counter", "duty", 0.0, "ethylene",
                              (("loop",),), ((None,),), ((82.0,),), ((60.0,),)), "duties_kw:"),
-    (lambda: cell_chain_rate(60.0, 40.0, ((None,),), ((None,),), ((40.0,),), "counter", "duty", 0.0, "ethylene",
+    (lambda: HW_CHAIN_RATE(60.0, 40.0, ((None,),), ((None,),), ((40.0,),), "counter", "duty", 0.0, "ethylene",
                              (("loop",),), ((800.0,),), None, ((60.0,),)), "t_engine_in_max:"),
-    (lambda: cell_chain_rate(60.0, 40.0, ((None, 1.0),), ((None, 1.0),), ((40.0, 1.0),), "counter", "duty", 0.0,
+    (lambda: HW_CHAIN_RATE(60.0, 40.0, ((None, 1.0),), ((None, 1.0),), ((40.0, 1.0),), "counter", "duty", 0.0,
                              "ethylene", (("loop", "stream"),), ((800.0,),), ((82.0,),), ((60.0,),)), "duties_kw:"),
-    (lambda: cell_chain_rate(60.0, 40.0, ((450.0,),), ((5.0,),), ((10.0,),), "counter", "total_duty", 0.0,
+    (lambda: HW_CHAIN_RATE(60.0, 40.0, ((450.0,),), ((5.0,),), ((10.0,),), "counter", "total_duty", 0.0,
                              "ethylene", None, None, None, None, 1), "stage:"),
     (lambda: drycooler_ua(0.0, 45.0, 40.0, 30.0, 38.0), "duty_kw:"),
     (lambda: drycooler_ua(100.0, 40.0, 45.0, 30.0, 38.0), "t_water_out:"),
@@ -232,12 +243,12 @@ def test_chain_check_both_ends():
     (lambda: drycooler_ua(100.0, 45.0, 40.0, 30.0, 47.0), "t_"),
     (lambda: drycooler_air_flow(100.0, 30.0, 25.0), "t_air_out:"),
     (lambda: drycooler_air_flow(100.0, 30.0, 40.0, 1.5), "rh_ambient:"),
-    (lambda: cell_exh_loss(-1.0, 120.0, 1.8, *METHANE), "exhaust_flow_kg_h:"),
-    (lambda: cell_exh_loss(1000.0, 20.0, 1.8, *METHANE), "t_stack:"),
-    (lambda: cell_exh_loss(1000.0, 120.0, 0.8, *METHANE), "air_ratio:"),
-    (lambda: chp_balance_check(0.0, 100.0, ((1.0,),), 10.0), "fuel_power_kw:"),
-    (lambda: chp_balance_check(1000.0, 100.0, ((-1.0,),), 10.0), "heat_flows_kw:"),
-    (lambda: chp_balance_check(1000.0, 100.0, ((1.0,),), -10.0), "exhaust_loss_kw:"),
+    (lambda: EXH_LOSS(-1.0, 120.0, 1.8, *METHANE), "exhaust_flow_kg_h:"),
+    (lambda: EXH_LOSS(1000.0, 20.0, 1.8, *METHANE), "t_stack:"),
+    (lambda: EXH_LOSS(1000.0, 120.0, 0.8, *METHANE), "air_ratio:"),
+    (lambda: chp_balance_check(0.0, 100.0, (1.0,), 10.0), "fuel_power_kw:"),
+    (lambda: chp_balance_check(1000.0, 100.0, (-1.0,), 10.0), "heat_flows_kw:"),
+    (lambda: chp_balance_check(1000.0, 100.0, (1.0,), -10.0), "exhaust_loss_kw:"),
     (lambda: chp_pes(0.4, 0.45, 0.525, None), "ref_thermal_efficiency:"),
     (lambda: chp_pes(0.4, 0.45, 0.525, 0.9, "natural-gas", 2020), "fuel:"),
     (lambda: chp_pes(0.4, 0.45, None, None, "natural-gas", None), "construction_year:"),
@@ -253,9 +264,9 @@ def test_bad_input_names_argument(call, name):
 
 
 @pytest.mark.parametrize("call,name", [
-    (lambda: cell_hw_engine_loop(800.0, 82.0, 60.0, 60.0, 40.0, 40.0, "counter", "heat"), "result:"),
-    (lambda: cell_hw_engine_loop(800.0, 82.0, 60.0, 60.0, 40.0, 40.0, "zigzag"), "arrangement:"),
-    (lambda: cell_chain_rate(60.0, 40.0, ((450.0,),), ((5.0,),), ((10.0,),), "counter", "duty", 0.0,
+    (lambda: HW_ENGINE_LOOP(800.0, 82.0, 60.0, 60.0, 40.0, 40.0, "counter", "heat"), "result:"),
+    (lambda: HW_ENGINE_LOOP(800.0, 82.0, 60.0, 60.0, 40.0, 40.0, "zigzag"), "arrangement:"),
+    (lambda: HW_CHAIN_RATE(60.0, 40.0, ((450.0,),), ((5.0,),), ((10.0,),), "counter", "duty", 0.0,
                              "ethylene", (("pump",),)), "stage_kinds:"),
     (lambda: chp_pes(0.4, 0.45, None, None, "coal", 2020), "fuel:"),
     (lambda: chp_pes(0.4, 0.45, None, None, "natural-gas", 2020, "ice"), "heat_use:"),
@@ -296,8 +307,8 @@ def test_drycooler_air_flow_hand_balance():
        lam=st.floats(1.2, 2.5), rh=st.floats(0.0, 1.0), t_amb=st.floats(0.0, 35.0))
 def test_exh_loss_difference_is_exh_heat(t1, t2, m, lam, rh, t_amb):
     """EXH_LOSS(t1) − EXH_LOSS(t2) = EXH_HEAT(t1 → t2) (issue 11), for a natural gas and humid air."""
-    a = cell_exh_loss(m, t1, lam, *NG, 25.0, t_amb, rh, 1.0)
-    b = cell_exh_loss(m, t2, lam, *NG, 25.0, t_amb, rh, 1.0)
+    a = EXH_LOSS(m, t1, lam, *NG, 25.0, t_amb, rh, 1.0)
+    b = EXH_LOSS(m, t2, lam, *NG, 25.0, t_amb, rh, 1.0)
     try:
         q = exhaust_heat(m, t1, t2, lam, parse_composition(*NG), t_amb, rh, 1.0)
     except CellInputError:  # t2 below the dew point: EXH_HEAT refuses
@@ -306,20 +317,20 @@ def test_exh_loss_difference_is_exh_heat(t1, t2, m, lam, rh, t_amb):
 
 
 def test_exh_loss_zero_at_reference():
-    assert cell_exh_loss(5000.0, 25.0, 1.8, *NG) == 0.0
+    assert EXH_LOSS(5000.0, 25.0, 1.8, *NG) == 0.0
 
 
 # ---- balance check ----------------------------------------------------------------
 
 def test_balance_check_three_outcomes():
     """Arithmetic of the first law: unaccounted = fuel − el − Σheat − exhaust − other."""
-    ok = chp_balance_check(1000.0, 420.0, ((300.0, 100.0),), 120.0, 30.0)  # 30 kW = 3.0 %
+    ok = CHP_BALANCE_CHECK(1000.0, 420.0, ((300.0, 100.0),), 120.0, 30.0)  # 30 kW = 3.0 %
     assert ok.startswith("OK: ") and "3.0 %" in ok
-    check = chp_balance_check(1000.0, 420.0, ((300.0,),), 120.0, 30.0)  # 130 kW = 13.0 %
+    check = CHP_BALANCE_CHECK(1000.0, 420.0, ((300.0,),), 120.0, 30.0)  # 130 kW = 13.0 %
     assert check.startswith("CHECK: ") and "13.0 %" in check
-    bad = chp_balance_check(1000.0, 420.0, ((400.0, 100.0),), 120.0, 10.0)  # outputs exceed by 50 kW
+    bad = CHP_BALANCE_CHECK(1000.0, 420.0, ((400.0, 100.0),), 120.0, 10.0)  # outputs exceed by 50 kW
     assert bad == "FIRST-LAW VIOLATION: outputs exceed the fuel by 50 kW (5.0 %)"
-    edge = chp_balance_check(1000.0, 420.0, ((300.0, 100.0),), 180.0, 4.0)  # −4 kW = −0.4 %: within
+    edge = CHP_BALANCE_CHECK(1000.0, 420.0, ((300.0, 100.0),), 180.0, 4.0)  # −4 kW = −0.4 %: within
     assert edge.startswith("OK: ")
     for t in (ok, check, bad, edge):
         assert len(t) <= 255

@@ -18,9 +18,18 @@ from vectors import approx, params
 
 from cellfuncs.errors import CellInputError, CellTypeError
 from cellfuncs.recovery import chain, water
-from cellfuncs.recovery.chain import (cell_chain, cell_chain_check, cell_chain_rate,
-                                      chain_temperatures, rate_chain, rate_chain_water)
+from cellfuncs import adapt, catalogue
+from cellfuncs.recovery.chain import chain_temperatures, hw_chain, rate_chain, rate_chain_water
 from cellfuncs.recovery.water import hw_cp, hw_density, hw_duty, hw_flow
+
+
+def _cell(name):
+    """The catalogue function NAME as a cell calls it (the shared adapter: ranges, layout, errors)."""
+    entry = catalogue.by_name(name)
+    return lambda *values: adapt.call(entry, values)
+
+
+HW_CHAIN, HW_CHAIN_RATE, HW_CHAIN_CHECK = _cell("HW_CHAIN"), _cell("HW_CHAIN_RATE"), _cell("HW_CHAIN_CHECK")
 
 CASES = {
     # stage data (hot_t_in, hot_c_kw_k, ua_kw_k) of the order-matters check
@@ -200,21 +209,21 @@ def test_chain_rate_water_stages_against_ht():
             assert res[k + 1]["t_in"] == r["t_out"]
 
 
-# ---- cell wrappers and layout ------------------------------------------------------
+# ---- through the cell boundary: ranges and layout ------------------------------------------------------
 
 def test_cell_chain_layout():
-    row = cell_chain(60.0, 50.0, ((200.0, 300.0, None, 400.0),))
+    row = HW_CHAIN(60.0, 50.0, ((200.0, 300.0, None, 400.0),))
     assert len(row) == 1 and len(row[0]) == 4
-    col = cell_chain(60.0, 50.0, ((200.0,), (300.0,), (None,), (400.0,)))
+    col = HW_CHAIN(60.0, 50.0, ((200.0,), (300.0,), (None,), (400.0,)))
     assert [c[0] for c in col] == row[0]
-    assert cell_chain(60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 2) == row[0][1]
+    assert HW_CHAIN(60.0, 50.0, ((200.0,), (300.0,)), 0.0, "ethylene", 2) == row[0][1]
 
 
 def test_cell_chain_rate_outputs():
     th, ch, ua = ((92.0,), (450.0,)), ((20.95,), (3.351,)), ((60.0,), (8.0,))
-    duty = cell_chain_rate(70.0, 40.0, th, ch, ua, "counter", "duty")
-    t_out = cell_chain_rate(70.0, 40.0, th, ch, ua)
-    t_hot = cell_chain_rate(70.0, 40.0, th, ch, ua, "counter", "t_hot_out")
+    duty = HW_CHAIN_RATE(70.0, 40.0, th, ch, ua, "counter", "duty")
+    t_out = HW_CHAIN_RATE(70.0, 40.0, th, ch, ua)
+    t_hot = HW_CHAIN_RATE(70.0, 40.0, th, ch, ua, "counter", "t_hot_out")
     assert len(duty) == 2 and all(len(r) == 1 for r in duty)
     assert t_hot[0][0] == pytest.approx(92.0 - duty[0][0] / 20.95, rel=1e-12)
     assert t_hot[1][0] == pytest.approx(450.0 - duty[1][0] / 3.351, rel=1e-12)
@@ -222,20 +231,20 @@ def test_cell_chain_rate_outputs():
 
 
 def test_cell_chain_rate_negative_duty_when_source_colder():
-    duty = cell_chain_rate(70.0, 40.0, ((450.0, 92.0),), ((3.351, 20.95),), ((8.0, 60.0),),
+    duty = HW_CHAIN_RATE(70.0, 40.0, ((450.0, 92.0),), ((3.351, 20.95),), ((8.0, 60.0),),
                            "counter", "duty")[0]
     assert duty[0] > 0 > duty[1]
 
 
 def test_chain_check_ok_and_findings():
-    assert cell_chain_check(60.0, 50.0, ((200.0, 300.0, 400.0),), ((92.0, 95.0, 450.0),)) == "OK"
+    assert HW_CHAIN_CHECK(60.0, 50.0, ((200.0, 300.0, 400.0),), ((92.0, 95.0, 450.0),)) == "OK"
     # 60 °C, 50 m³/h: stage 1 at 1500 kW leaves about 86 °C, above the oil cooler's 80 - 5 = 75 °C
-    text = cell_chain_check(60.0, 50.0, ((1500.0, 300.0),), ((80.0, 450.0),))
+    text = HW_CHAIN_CHECK(60.0, 50.0, ((1500.0, 300.0),), ((80.0, 450.0),))
     assert text.startswith("stage 1 hot end:") and "\n" not in text and "75" in text
-    text = cell_chain_check(60.0, 50.0, ((200.0, 300.0, 4000.0),), ((92.0, 95.0, 450.0),))
+    text = HW_CHAIN_CHECK(60.0, 50.0, ((200.0, 300.0, 4000.0),), ((92.0, 95.0, 450.0),))
     assert text.startswith("stage 3:") and "133.52" in text
     # one hot_t_max for all stages
-    assert cell_chain_check(60.0, 50.0, ((200.0, 300.0),), ((95.0,),), 5.0) == "OK"
+    assert HW_CHAIN_CHECK(60.0, 50.0, ((200.0, 300.0),), ((95.0,),), 5.0) == "OK"
 
 
 # ---- bad input names the argument --------------------------------------------
@@ -254,18 +263,18 @@ def test_chain_check_ok_and_findings():
     (lambda: hw_flow(100.0, 60.0, 150.0), "t_out:"),
     (lambda: hw_duty(0.0, 60.0, 90.0), "flow_m3h:"),
     (lambda: hw_duty(10.0, 160.0, 90.0), "t_in:"),
-    (lambda: cell_chain(60.0, 10.0, ((2000.0, 3000.0),)), "duties_kw:"),
-    (lambda: cell_chain(140.0, 10.0, ((20.0,),)), "t_water_in:"),
-    (lambda: cell_chain(60.0, -1.0, ((20.0,),)), "water_flow_m3_h:"),
-    (lambda: cell_chain(60.0, 10.0, ((20.0,),), 0.0, "ethylene", 3), "stage:"),
-    (lambda: cell_chain(60.0, 10.0, ((500.0,),), 0.3, "ethylene", None), "duties_kw:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((450.0,),), ((10.0,),), ((30.0,),)), "ua_kw_k:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((450.0, 90.0),), ((10.0,),), ((30.0,),)), "c_source_kw_k:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((None,),), ((10.0,),), ((30.0,),)), "t_source_in:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((0.0,),), ((30.0,),)), "c_source_kw_k:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((-3.0,),)), "ua_kw_k:"),
-    (lambda: cell_chain_check(60.0, 50.0, ((200.0, 300.0),), ((92.0, None),)), "t_source_in:"),
-    (lambda: cell_chain_check(60.0, 50.0, ((200.0,),), ((92.0,),), -1.0), "min_approach_k:"),
+    (lambda: HW_CHAIN(60.0, 10.0, ((2000.0, 3000.0),)), "duties_kw:"),
+    (lambda: HW_CHAIN(140.0, 10.0, ((20.0,),)), "t_water_in:"),
+    (lambda: HW_CHAIN(60.0, -1.0, ((20.0,),)), "water_flow_m3_h:"),
+    (lambda: HW_CHAIN(60.0, 10.0, ((20.0,),), 0.0, "ethylene", 3), "stage:"),
+    (lambda: HW_CHAIN(60.0, 10.0, ((500.0,),), 0.3, "ethylene", None), "duties_kw:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((450.0,),), ((10.0,),), ((30.0,),)), "ua_kw_k:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((450.0, 90.0),), ((10.0,),), ((30.0,),)), "c_source_kw_k:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((None,),), ((10.0,),), ((30.0,),)), "t_source_in:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((90.0,),), ((0.0,),), ((30.0,),)), "c_source_kw_k:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((90.0,),), ((5.0,),), ((-3.0,),)), "ua_kw_k:"),
+    (lambda: HW_CHAIN_CHECK(60.0, 50.0, ((200.0, 300.0),), ((92.0, None),)), "t_source_in:"),
+    (lambda: HW_CHAIN_CHECK(60.0, 50.0, ((200.0,),), ((92.0,),), -1.0), "min_approach_k:"),
 ])
 def test_bad_input_names_argument(call, name):
     with pytest.raises(CellInputError) as err:
@@ -276,11 +285,11 @@ def test_bad_input_names_argument(call, name):
 
 @pytest.mark.parametrize("call,name", [
     (lambda: hw_cp(50.0, 0.3, "glycerol"), "glycol:"),
-    (lambda: cell_chain(60.0, 10.0, ((20.0, 30.0), (1.0, 2.0))), "duties_kw:"),
-    (lambda: cell_chain(60.0, 10.0, ((20.0, "x"),)), "duties_kw:"),
-    (lambda: cell_chain(60.0, 10.0, ((20.0,),), 0.0, "ethylene", 1.5), "stage:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "zigzag"), "arrangement:"),
-    (lambda: cell_chain_rate(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "counter", "x"), "result:"),
+    (lambda: HW_CHAIN(60.0, 10.0, ((20.0, 30.0), (1.0, 2.0))), "duties_kw:"),
+    (lambda: HW_CHAIN(60.0, 10.0, ((20.0, "x"),)), "duties_kw:"),
+    (lambda: hw_chain(60.0, 10.0, [20.0], 0.0, "ethylene", 1.5), "stage:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "zigzag"), "arrangement:"),
+    (lambda: HW_CHAIN_RATE(70.0, 5.0, ((90.0,),), ((5.0,),), ((3.0,),), "counter", "x"), "result:"),
 ])
 def test_wrong_kind_names_argument(call, name):
     with pytest.raises(CellTypeError) as err:
@@ -394,18 +403,10 @@ def test_catalogue_entries_are_well_formed():
 
 
 def test_catalogue_calls_like_the_adapters():
-    """Call the targets positionally with adapter-coerced values (ranges as tuples of rows)."""
-    from cellfuncs.catalogue import by_name
+    """The catalogue entries called through the shared adapter (ranges as tuples of rows)."""
 
     def call(name, *args):
-        from cellfuncs.adapt import _fold_gas, _one
-
-        e = by_name(name)
-        full = list(args) + [a.default for a in e.args[len(args):]]
-        if any(a.kind == "gas" for a in e.args):  # the gas analysis is parsed as adapt does
-            full = _fold_gas(e, [_one(a, v) if a.kind in ("gas", "amounts") else v
-                                 for a, v in zip(e.args, full)])
-        return e.resolve()(*full)
+        return _cell(name)(*args)
 
     assert call("HW_CP", 70.0) == pytest.approx(hw_cp(70.0))
     t = call("HW_CHAIN", 60.0, 50.0, ((200.0, 300.0),))

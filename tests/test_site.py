@@ -20,7 +20,17 @@ from vectors import approx, params
 from cellfuncs import excel
 from cellfuncs.errors import CellInputError, CellTypeError
 from cellfuncs.site.atmosphere import site_pressure
-from cellfuncs.site.tables import table_interp, table_interp2
+from cellfuncs import adapt, catalogue
+
+
+def _cell(name):
+    """The catalogue function NAME as a cell calls it (the shared adapter reads the ranges)."""
+    entry = catalogue.by_name(name)
+    return lambda *values: adapt.call(entry, values)
+
+
+# the tests below are about ranges as cells hold them (layout, trailing blanks): through the adapter
+table_interp, table_interp2 = _cell("TABLE_INTERP"), _cell("TABLE_INTERP2")
 
 R_EARTH = 6356766.0  # m, ISO 2533 radius for geopotential altitude
 
@@ -83,6 +93,17 @@ def test_table_interp_trailing_blanks_and_row_layout():
     assert table_interp(5.0, xs, ys) == 6.0
     assert table_interp(5.0, ((0.0, 10.0, None),), ((5.0, 7.0, None),)) == 6.0
     assert excel.TABLE_INTERP(5.0, [[0.0], [10.0], [None]], [[5.0], [7.0], [None]]) == 6.0
+
+
+def test_core_takes_plain_numbers():
+    """The cores take sequences of floats (the adapter reads the ranges); hand arithmetic, common
+    practice: halfway between 0.96 and 0.89 is 0.925; the grid's centre is the mean of its corners."""
+    from cellfuncs.site import tables
+
+    assert tables.table_interp(1500.0, [0.0, 1000.0, 2000.0], [1.0, 0.96, 0.89]) == pytest.approx(0.925)
+    assert tables.table_interp2(0.5, 0.5, (0.0, 1.0), (0.0, 1.0), ((1.0, 2.0), (3.0, 4.0))) == 2.5
+    with pytest.raises(CellInputError, match="^x_values: row 3 .* does not increase"):
+        tables.table_interp(1.0, [0.0, 1.0, 1.0], [1.0, 2.0, 3.0])
 
 
 def test_table_interp_decreasing_axis():
@@ -158,7 +179,7 @@ def test_table_interp_reproduces_knots(tab):
 @given(tables(), st.floats(0.0, 1.0))
 def test_table_interp_stays_between_neighbours(tab, frac):
     xs, ys = tab
-    x = min(xs) + frac * (max(xs) - min(xs))
+    x = min(max(xs), min(xs) + frac * (max(xs) - min(xs)))  # rounding may step past the last knot
     got = table_interp(x, col(xs), col(ys))
     assert min(ys) - 1e-9 <= got <= max(ys) + 1e-9
 

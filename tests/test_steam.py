@@ -21,7 +21,8 @@ from vectors import approx, params
 from cellfuncs.errors import CellInputError, CellTypeError
 from cellfuncs.gas.composition import parse_composition
 from cellfuncs.props import if97
-from cellfuncs.recovery.steam import cell_exh_steam, exhaust_steam, steam_balance
+from cellfuncs import adapt, catalogue
+from cellfuncs.recovery.steam import exhaust_steam, steam_balance
 
 NAMES = [["methane"], ["ethane"], ["propane"], ["nitrogen"], ["carbon dioxide"]]
 AMOUNTS = [[92.0], [4.5], [1.0], [1.5], [1.0]]
@@ -33,9 +34,9 @@ METHANE = parse_composition([["methane"]], [[100.0]])
 
 @pytest.mark.parametrize("row", params("steam", "EXH_STEAM"))
 def test_exh_steam_vectors(row):
-    got = cell_exh_steam(row["exhaust_flow_kg_h"], row["t_exhaust_in"], row["air_ratio"], NAMES, AMOUNTS,
-                         row["p_steam_bar"], row["t_feedwater"], row["pinch_k"], row["result"],
-                         row["approach_k"])
+    got = exhaust_steam(row["exhaust_flow_kg_h"], row["t_exhaust_in"], row["air_ratio"], GAS,
+                        row["p_steam_bar"], row["t_feedwater"], row["pinch_k"], row["result"],
+                        row["approach_k"])
     assert got == approx(row)
 
 
@@ -126,13 +127,16 @@ def test_pinch_and_approach_trends():
     assert t[0] < t[1] < t[2]
 
 
-def test_results_and_cell_wrapper():
-    row = cell_exh_steam(10000.0, 450.0, 1.8, NAMES, AMOUNTS, 10.0, 105.0, 10.0, "all", 0.0)
+def test_results_and_cell_boundary():
+    row = exhaust_steam(10000.0, 450.0, 1.8, GAS, 10.0, 105.0, 10.0, "all", 0.0)
     assert len(row) == 3
     for i, r in enumerate(("steam", "duty", "t_stack")):
-        assert cell_exh_steam(10000.0, 450.0, 1.8, NAMES, AMOUNTS, 10.0, 105.0, 10.0, r) == row[i]
+        assert exhaust_steam(10000.0, 450.0, 1.8, GAS, 10.0, 105.0, 10.0, r) == row[i]
+    # in a cell: the gas as names + amounts, or one two-column range; "all" a 1×3 row
+    entry = catalogue.by_name("EXH_STEAM")
     two_col = [[n[0], a[0]] for n, a in zip(NAMES, AMOUNTS)]
-    assert cell_exh_steam(10000.0, 450.0, 1.8, two_col, None, 10.0, 105.0, 10.0, "all") == row
+    assert adapt.call(entry, (10000.0, 450.0, 1.8, NAMES, AMOUNTS, 10.0, 105.0, 10.0, "all")) == [row]
+    assert adapt.call(entry, (10000.0, 450.0, 1.8, two_col, None, 10.0, 105.0, 10.0, "all")) == [row]
     # feedwater at the economiser outlet: no economiser duty, stack = saturation + pinch
     ts = if97.t_sat(1.0) - 273.15
     b = steam_balance(10000.0, 450.0, 1.8, GAS, 10.0, ts - 5.0, 10.0, 5.0)
@@ -191,8 +195,9 @@ def test_other_refusals():
 
 
 def test_does_not_import_coolprop():
-    code = ("import sys\nfrom cellfuncs.recovery.steam import cell_exh_steam\n"
-            "cell_exh_steam(10000.0, 450.0, 1.8, [['methane']], [[100.0]], 10.0, 105.0)\n"
+    code = ("import sys\nfrom cellfuncs import adapt, catalogue\n"
+            "adapt.call(catalogue.by_name('EXH_STEAM'), (10000.0, 450.0, 1.8, [['methane']], [[100.0]], "
+            "10.0, 105.0))\n"
             "assert 'CoolProp' not in sys.modules\nprint('ok')\n")
     r = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120)
     assert r.returncode == 0, r.stderr

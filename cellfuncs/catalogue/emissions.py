@@ -46,7 +46,7 @@ _NOTE = " Emission guarantees come from the engine's declared data; permits foll
 ENTRIES = [
     CellFunction(
         name="EMIS_CONVERT",
-        target="cellfuncs.emissions.conversions:emis_convert_cells",
+        target="cellfuncs.emissions.conversions:emis_convert_words",
         category=CATEGORY,
         description="Converts an emission value between ppm, mg/Nm3 (dry, 0 °C, 1.01325 bar, 22.414 "
                     "L/mol, at the reference O2), mg/MJ of fuel and g/kWh of electricity by the "

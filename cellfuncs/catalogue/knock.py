@@ -35,7 +35,7 @@ _A = Arg("delay_pressure_exponent", "Pressure exponent a of the ignition delay, 
 ENTRIES = [
     CellFunction(
         name="KNOCK_MARGIN",
-        target="cellfuncs.knock.margin:cell_knock_margin",
+        target="cellfuncs.knock.margin:margin",
         category=CATEGORY,
         description="Knock margin: kelvin (k) or methane-number points (mn) left before the "
                     "calibrated limit, negative beyond it; not for load or timing."
@@ -49,7 +49,7 @@ ENTRIES = [
     ),
     CellFunction(
         name="KNOCK_T_LIMIT",
-        target="cellfuncs.knock.margin:cell_knock_t_limit",
+        target="cellfuncs.knock.margin:t_limit",
         category=CATEGORY,
         description="Highest mixture temperature after the charge-air cooler for this gas, "
                     "boost and compression ratio; keep it above the dew point too."
@@ -59,7 +59,7 @@ ENTRIES = [
     ),
     CellFunction(
         name="KNOCK_MN_REQUIRED",
-        target="cellfuncs.knock.margin:cell_knock_mn_required",
+        target="cellfuncs.knock.margin:mn_required",
         category=CATEGORY,
         description="Methane number the engine needs at this mixture temperature, boost and "
                     "compression ratio." + _CAUTION,

@@ -36,7 +36,7 @@ def _ambient():
 ENTRIES = [
     CellFunction(
         name="HW_ENGINE_LOOP",
-        target=_REC + "engine_loop:cell_hw_engine_loop",
+        target=_REC + "engine_loop:hw_engine_loop",
         category=CAT_HR,
         description="Engine cooling circuit at fixed duty, one exchanger (UA, epsilon-NTU) to the "
                     "client's water and a dump cooler holding the engine inlet at its limit: heat to "
@@ -124,7 +124,7 @@ ENTRIES = [
         args=(Arg("fuel_power_kw", "Fuel power input on the net calorific value", "kW"),
               Arg("electrical_kw", "Electrical output", "kW"),
               Arg("heat_flows_kw", "Every heat flow leaving the plant, recovered and dumped, any "
-                  "range [kW]; blanks skipped", kind="range"),
+                  "range [kW]; blanks skipped", kind="numbers"),
               Arg("exhaust_loss_kw", "Exhaust loss above 25 °C, water as vapour (EXH_LOSS)", "kW"),
               Arg("other_losses_kw", "Losses counted apart, e.g. radiation (typically 1-3 % of the "
                   "fuel) and generator loss (2-4 %, common practice)", "kW", default=0.0)),

@@ -103,7 +103,7 @@ HOT_WATER = [
     ),
     CellFunction(
         name="HW_CHAIN",
-        target=_REC + "chain:cell_chain",
+        target=_REC + "chain:hw_chain",
         category=CAT_HR,
         description="Water temperature after each heat exchanger of a hot-water chain when the "
                     "listed duties are added in the listed order (array formula), or after stage "
@@ -111,7 +111,7 @@ HOT_WATER = [
         args=(_t("t_water_in", "Client's water entering the first exchanger (the return)"),
               _flow("water_flow_m3_h", _CHAIN_FLOW),
               Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
-                  "[kW]; a blank cell is a stage with no duty", kind="range"),
+                  "[kW]; a blank cell is a stage with no duty", kind="stages"),
               _glycol_fraction(), _glycol(),
               Arg("stage", "Return only the temperature after this stage (1 = first); blank "
                   "returns every stage", kind="integer", default=None)),
@@ -121,7 +121,7 @@ HOT_WATER = [
     ),
     CellFunction(
         name="HW_CHAIN_RATE",
-        target=_REC + "chain:cell_chain_rate",
+        target=_REC + "chain:hw_chain_rate",
         category=CAT_HR,
         description="Rates a hot-water chain in water-flow order by epsilon-NTU: rated streams "
                     "(source inlet, capacity rate, UA) and engine loops at fixed duty with a dump "
@@ -129,11 +129,11 @@ HOT_WATER = [
         args=(_t("t_water_in", "Client's water entering the first exchanger (the return)"),
               _flow("water_flow_m3_h", _CHAIN_FLOW),
               Arg("t_source_in", "Source (hot-side) inlet temperature of each stage, one row or column "
-                  "[°C]; ignored for loop stages", kind="range"),
+                  "[°C]; ignored for loop stages", kind="stages"),
               Arg("c_source_kw_k", "Source capacity rate (mass flow times cp) of each stage [kW/K]; "
-                  "ignored for loop stages", kind="range"),
+                  "ignored for loop stages", kind="stages"),
               Arg("ua_kw_k", "UA of each stage, one row or column [kW/K]; blank or 0 = no exchange",
-                  kind="range"),
+                  kind="stages"),
               Arg("arrangement", "Flow arrangement of every stage", kind="option",
                   default="counter", options=ARRANGEMENT_WORDS, aliases=ARRANGEMENT_ALIASES),
               Arg("result", "Per stage: water out, duty to the water, source out, dump, water in, "
@@ -145,14 +145,14 @@ HOT_WATER = [
                            "tsourcein": "t_hot_in"}),
               _glycol_fraction(), _glycol(),
               Arg("stage_kinds", 'Kind of each stage, "stream" (rated stream) or "loop" (engine '
-                  "circuit at fixed duty with a dump cooler); blank = stream", kind="range",
+                  "circuit at fixed duty with a dump cooler); blank = stream", kind="words",
                   default=None),
               Arg("duties_kw", "Duty the engine rejects into each loop stage [kW]; blank for streams",
-                  kind="range", default=None),
+                  kind="stages", default=None),
               Arg("t_engine_in_max", "Maximum engine inlet temperature of each loop, one cell per stage "
-                  "or one for all [°C]", kind="range", default=None),
+                  "or one for all [°C]", kind="stages", default=None),
               Arg("engine_flow_m3_h", "Engine circuit flow of each loop, measured at t_engine_in_max, "
-                  "one per stage or one for all [m³/h]", kind="range", default=None),
+                  "one per stage or one for all [m³/h]", kind="stages", default=None),
               Arg("stage", "Return only this stage's value (1 = first); blank returns every stage",
                   kind="integer", default=None),
               Arg("engine_glycol_fraction", "Glycol mass fraction of the engine circuits, 0 for water",
@@ -167,7 +167,7 @@ HOT_WATER = [
     ),
     CellFunction(
         name="HW_CHAIN_CHECK",
-        target=_REC + "chain:cell_chain_check",
+        target=_REC + "chain:hw_chain_check",
         category=CAT_HR,
         description='"OK", or one line naming the first stage of a hot-water chain where the water '
                     "leaves above its source inlet minus the approach (hot end), the source leaves "
@@ -175,14 +175,14 @@ HOT_WATER = [
         args=(_t("t_water_in", "Client's water entering the first exchanger (the return)"),
               _flow("water_flow_m3_h", _CHAIN_FLOW),
               Arg("duties_kw", "Duty of each exchanger in water-flow order, one row or column "
-                  "[kW]; a blank cell is a stage with no duty", kind="range"),
+                  "[kW]; a blank cell is a stage with no duty", kind="stages"),
               Arg("t_source_in", "Hot end: each source's inlet (hottest) temperature, for an engine "
-                  "loop its engine outlet; one cell per stage or one for all [°C]", kind="range"),
+                  "loop its engine outlet; one cell per stage or one for all [°C]", kind="stages"),
               Arg("min_approach_k", "Smallest allowed temperature difference at either end of a "
                   "stage", "K", default=5.0),
               _glycol_fraction(), _glycol(),
               Arg("t_source_out", "Cold end: each source's outlet (coldest) temperature, for an "
-                  "engine loop t_engine_in_max; blank = not checked [°C]", kind="range",
+                  "engine loop t_engine_in_max; blank = not checked [°C]", kind="stages",
                   default=None)),
         returns="\"OK\" or a one-line finding [text]",
         example=(60.0, 50.0, [[200.0, 300.0, 400.0]], [[92.0, 95.0, 450.0]], 5.0, 0.0, "ethylene",
@@ -293,7 +293,7 @@ PLANT = [
         args=(Arg("fuel_power_kw", "Fuel power input (state its calorific-value basis)", "kW"),
               Arg("electrical_kw", "Electrical output", "kW"),
               Arg("heat_kw", "Useful heat outputs, any range, summed; blank cells are skipped [kW]",
-                  kind="range"),
+                  kind="numbers"),
               Arg("result", "Which fraction", kind="option", default="total",
                   options=("total", "electrical", "thermal", "unaccounted"),
                   aliases={"losses": "unaccounted", "heat": "thermal", "power": "electrical"})),

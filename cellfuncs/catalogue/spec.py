@@ -17,6 +17,22 @@ Argument kinds
 ``text``     free text (a unit name, a reference condition ``"15/15"``).
 ``range``    a block of cells: the core receives a tuple of rows, each a tuple
              of cells; a cell is a float, a str or ``None`` (blank).
+``stages``   one row or one column of numbers, one per stage; a blank is a
+             stage with nothing in it.  The core receives a tuple of floats and
+             ``None``; a 1-D result of an ``array`` function is laid out like
+             the function's first ``stages`` argument (a row or a column).
+``words``    one row or one column of words (stage kinds); the core receives a
+             tuple of stripped texts and ``None`` (blank).
+``numbers``  every number of a block of any shape (heat flows to add up),
+             blanks skipped; the core receives a tuple of floats.
+``axis``     one row or one column of numbers of a declared table, trailing
+             blanks dropped, a blank inside refused; the core receives a tuple
+             of floats.
+``table``    a block of numbers; the core receives a tuple of rows of floats
+             and ``None`` (blank).
+             For all five, text or a logical value where a number belongs is
+             refused naming the argument and the cell; a block where one row
+             or one column is wanted is refused.
 ``reference`` a number or a text: reference conditions ``"t1/t2"`` or, as a
              number, the metering temperature alone (GAS_Z, GAS_DENSITY,
              GAS_REL_DENSITY); the core receives a float or the stripped text.
@@ -53,10 +69,11 @@ class _Required:
 
 REQUIRED: Any = _Required()
 KINDS = ("number", "integer", "option", "text", "range", "reference", "gas", "amounts",
-         "amount_uncertainties")
+         "amount_uncertainties", "stages", "words", "numbers", "axis", "table")
 
 #: kinds that take a block of cells (xlwings hands them over as 2-D lists)
-RANGE_KINDS = frozenset(("range", "gas", "amounts", "amount_uncertainties"))
+RANGE_KINDS = frozenset(("range", "gas", "amounts", "amount_uncertainties", "stages", "words", "numbers",
+                         "axis", "table"))
 
 
 @dataclass(frozen=True)
@@ -131,7 +148,8 @@ class CellFunction:
         What is returned, with its unit in brackets.
     shape : str
         ``"scalar"``; ``"row"`` or ``"column"`` when a 1-D result is returned
-        (for an array formula); ``"array"`` when the core returns rows itself.
+        (for an array formula); ``"array"`` when the core returns rows itself,
+        or a 1-D list laid out like the first ``stages`` argument.
     example : tuple
         Optional: one valid set of argument values as a cell would pass them
         (ranges as lists of rows).  The reliability test mutates it one

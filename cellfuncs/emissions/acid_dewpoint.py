@@ -20,7 +20,7 @@ import math
 
 from cellfuncs.errors import CellInputError, check_range, fmt
 
-__all__ = ["VB_COEF", "MMHG_PER_BAR", "verhoff_banchero", "acid_dewpoint", "cell_acid_dewpoint"]
+__all__ = ["VB_COEF", "MMHG_PER_BAR", "verhoff_banchero", "acid_dewpoint"]
 
 #: Verhoff & Banchero (1974) coefficients (a, b, c, d) of 1000/T = a − b ln pw − c ln ps + d ln pw ln ps
 VB_COEF = (2.276, 0.02943, 0.0858, 0.0062)
@@ -147,12 +147,3 @@ def acid_dewpoint(air_ratio: float, comp, p_exhaust_bar: float = 1.01325, t_ambi
                              f"{t_acid:.1f} °C, below the water dew point {t_water:.1f} °C; the water "
                              "dew point governs (EXH_DEWPOINT)")
     return t_acid
-
-
-def cell_acid_dewpoint(air_ratio, components, amounts=None, p_exhaust_bar=1.01325, t_ambient=25.0,
-                       rh_ambient=0.3, p_ambient_bar=1.0, so3_share=0.02) -> float:
-    """EXH_ACID_DEWPOINT [°C]."""
-    from cellfuncs.emissions.conversions import parse_gas
-
-    return acid_dewpoint(air_ratio, parse_gas(components, amounts), p_exhaust_bar,
-                         t_ambient, rh_ambient, p_ambient_bar, so3_share)

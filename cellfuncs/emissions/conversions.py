@@ -30,8 +30,7 @@ from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
 
 __all__ = [
     "MOLAR_VOLUME_L", "O2_AIR_PCT", "T_COMBUSTION", "SPECIES", "SPECIES_ALIASES", "UNITS",
-    "UNIT_ALIASES", "species_molar_mass", "dry_volume", "emis_convert", "parse_gas",
-    "cell_dry_volume", "cell_emis_convert",
+    "UNIT_ALIASES", "species_molar_mass", "dry_volume", "emis_convert", "emis_convert_words",
 ]
 
 #: molar volume of an ideal gas at 0 °C and 1.01325 bar (R·273.15 K/101 325 Pa = 22.41397) [L/mol]
@@ -264,51 +263,19 @@ def emis_convert(value: float, unit_given: str, unit_wanted: str, species: str =
 _SHOW = {"ppm": "ppm", "mg/nm3": "mg/Nm3", "mg/mj": "mg/MJ", "g/kwh": "g/kWh"}
 
 
-# ---- cell wrappers -------------------------------------------------------------------
-
-def parse_gas(components, amounts=None):
-    """parse_composition for the glossary's argument names: its errors name ``amounts``.
-
-    (Until the gas family's parser itself says ``amounts``, a message about
-    ``fractions`` is renamed here.)
-    """
-    from cellfuncs.gas.composition import parse_composition
-
-    try:
-        return parse_composition(components, amounts)
-    except CellInputError as exc:
-        if exc.message.startswith("fractions:"):
-            raise type(exc)("amounts:" + exc.message[len("fractions:"):]) from None
-        raise
-
-
-_gas = parse_gas
-
-
-def cell_dry_volume(components, amounts=None, o2_reference_pct=0.0, kind="net") -> float:
-    """EXH_DRY_VOLUME [Nm³/kWh]."""
-    return dry_volume(_gas(components, amounts), o2_reference_pct, kind)
-
-
-def emis_convert_cells(value, unit_given, unit_wanted, species="nox", gas=None, o2_reference_pct=5.0,
+def emis_convert_words(value, unit_given, unit_wanted, species="nox", gas=None, o2_reference_pct=5.0,
                        electrical_efficiency=None, kind="net") -> float:
-    """EMIS_CONVERT as the catalogue calls it: unit words checked here, the gas analysis parsed.
+    """:func:`emis_convert` with the unit words checked first; the gas is used only when needed.
 
-    ``gas`` is the :class:`~cellfuncs.gas.composition.Composition` the shared
-    adapter parsed from ``components``/``amounts`` (None when left empty).
+    ``gas`` is a :class:`~cellfuncs.gas.composition.Composition` or None; it is
+    ignored when neither unit needs the fuel (ppm <-> mg/Nm3, or the same unit).
+
+    References
+    ----------
+    .. [1] See :func:`emis_convert` (F-factor method).
     """
     ug = _word(unit_given, "unit_given", UNITS, UNIT_ALIASES)
     uw = _word(unit_wanted, "unit_wanted", UNITS, UNIT_ALIASES)
     need_gas = ug != uw and (ug in _NEEDS_GAS or uw in _NEEDS_GAS)
     return emis_convert(value, ug, uw, species, gas if need_gas else None, o2_reference_pct,
                         electrical_efficiency, kind)
-
-
-def cell_emis_convert(value, unit_given, unit_wanted, species="nox", components=None, amounts=None,
-                      o2_reference_pct=5.0, electrical_efficiency=None, kind="net") -> float:
-    """EMIS_CONVERT [unit_wanted]."""
-    ug = _word(unit_given, "unit_given", UNITS, UNIT_ALIASES)
-    uw = _word(unit_wanted, "unit_wanted", UNITS, UNIT_ALIASES)
-    need_gas = ug != uw and (ug in _NEEDS_GAS or uw in _NEEDS_GAS)
-    comp = _gas(components, amounts) if need_gas and components is not None else None
-    return emis_convert(value, ug, uw, species, comp, o2_reference_pct, electrical_efficiency, kind)

@@ -34,7 +34,6 @@ nC8H18, H2, CO, H2S, NH3, H2O, He, Ar, N2, O2, CO2``.
 
 from __future__ import annotations
 
-import functools
 import math
 from dataclasses import dataclass, field
 from functools import lru_cache
@@ -247,35 +246,6 @@ class Composition:
 
     def __contains__(self, cid) -> bool:
         return cid in self.ids
-
-
-def cell_cached(fn):
-    """Cache a cell wrapper's results on its (hashable) arguments.
-
-    Kept only for catalogue entries still on the old convention (a ``components``
-    range, an ``amounts`` range and a ``cell_...`` wrapper calling
-    :func:`parse_composition`); entries of kind ``"gas"``/``"amounts"`` need no
-    wrapper, the adapter parses and caches (issue 10).  Remove when none is left.
-
-    A sheet calls the same function on the same gas range many times; the
-    adapters hand over ranges as tuples, so the whole call is a cache key.
-    Errors are not cached.  Unhashable arguments (lists from Python callers)
-    bypass the cache.
-    """
-    cached = lru_cache(maxsize=4096)(fn)
-
-    @functools.wraps(fn)
-    def wrapper(*args, **kwargs):
-        try:
-            return cached(*args, **kwargs)
-        except TypeError as exc:
-            if "unhashable" not in str(exc):
-                raise
-            return fn(*args, **kwargs)
-
-    wrapper.cache_clear = cached.cache_clear
-    return wrapper
-
 
 
 # ---------------------------------------------------------------------------

@@ -34,7 +34,7 @@ from cellfuncs.gas import methane_number as mn
 __all__ = [
     "HC_MON", "MN_PAPER", "MN_ISO15403", "HC_INERT_MAX", "HC_RANGE", "NEW_METHODS",
     "SPREAD_METHODS", "hc_ratio", "mon_hc_ratio", "mon_linear", "methane_number_by",
-    "basis", "spread_details", "spread", "cell_methane_number_spread",
+    "basis", "spread_details", "spread",
 ]
 
 #: MON = a0 + a1·r + a2·r² + a3·r³, r = H/C atoms; Kubesh, King & Liss (1992), as quoted in
@@ -335,10 +335,3 @@ def spread(comp, result: str = "spread"):
     if word == "highest":
         return max(vals)
     return max(vals) - min(vals)
-
-
-def cell_methane_number_spread(components, amounts=None, result="spread"):
-    """GAS_METHANE_NUMBER_SPREAD [-]."""
-    from cellfuncs.emissions.conversions import parse_gas
-
-    return spread(parse_gas(components, amounts), result)

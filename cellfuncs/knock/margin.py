@@ -70,7 +70,6 @@ from cellfuncs.errors import CellInputError, CellTypeError, check_range
 __all__ = [
     "B_DEFAULT", "A_DEFAULT", "K_DEFAULT", "N_DEFAULT",
     "t_limit", "margin", "mn_required",
-    "cell_knock_margin", "cell_knock_t_limit", "cell_knock_mn_required",
 ]
 
 B_DEFAULT = 19600.0  # K
@@ -305,9 +304,3 @@ def mn_required(t_mixture, p_boost_bar, compression_ratio, t_ref, p_ref_bar, mn_
         p_boost_bar, compression_ratio, t_ref, p_ref_bar, mn_ref, compression_ratio_ref,
         k_per_mn, n_poly, activation_k, pressure_exp)
     return mnr - (_t_allow_ref_mn(p, eps, tr, pr, eps_r, n, b, a) - t) / k
-
-
-# the cell forms take the arguments in catalogue order (the same as the cores)
-cell_knock_margin = margin
-cell_knock_t_limit = t_limit
-cell_knock_mn_required = mn_required

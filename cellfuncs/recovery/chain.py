@@ -19,7 +19,6 @@ import math
 
 from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
 from cellfuncs.recovery import water as _w
-from cellfuncs.recovery._cells import layout, stage_cells
 
 __all__ = [
     "ARRANGEMENTS",
@@ -28,9 +27,9 @@ __all__ = [
     "rate_chain_water",
     "chain_temperatures",
     "chain_check",
-    "cell_chain",
-    "cell_chain_rate",
-    "cell_chain_check",
+    "hw_chain",
+    "hw_chain_rate",
+    "hw_chain_check",
 ]
 
 #: arrangement words: one vocabulary with the heat-exchanger family
@@ -513,14 +512,53 @@ def chain_check(t_water_in: float, water_flow_m3_h: float, duties_kw, t_source_i
     return "OK"
 
 
-# ---- cell wrappers (ranges in, laid-out results back) -----------------------------
+# ---- per-stage or per-chain results (HW_CHAIN, HW_CHAIN_RATE, HW_CHAIN_CHECK) --------
 
-def cell_chain(t_water_in, water_flow_m3_h, duties_kw, glycol_fraction=0.0, glycol="ethylene", stage=None):
-    """HW_CHAIN: temperatures after each stage laid out like duties_kw, or one stage's [°C]."""
-    cells, lay = stage_cells("duties_kw", duties_kw)
-    temps = chain_temperatures(t_water_in, water_flow_m3_h, cells, glycol_fraction, glycol)
+def _stage_values(name: str, values) -> list:
+    """A stage list as floats and None (blank); a single number counts as one stage."""
+    if values is None:
+        raise CellTypeError(f"{name}: no stages given")
+    if isinstance(values, (int, float)) and not isinstance(values, bool):
+        return [float(values)]
+    out = list(values)
+    if not out:
+        raise CellTypeError(f"{name}: no stages given")
+    return out
+
+
+def _optional_values(name: str, values):
+    return None if values is None else _stage_values(name, values)
+
+
+def hw_chain(t_water_in, water_flow_m3_h, duties_kw, glycol_fraction=0.0, glycol="ethylene", stage=None):
+    """Water temperature after each stage of a chain of given duties, or after one stage.
+
+    Parameters
+    ----------
+    t_water_in : float
+        Client's water entering the first stage [°C].
+    water_flow_m3_h : float
+        Circuit volume flow measured at t_water_in [m³/h].
+    duties_kw : sequence of float or None
+        Duty of each stage in water-flow order, None = no duty [kW].
+    glycol_fraction, glycol : float, str
+        Glycol mass fraction [-] and glycol word.
+    stage : int or None
+        1-based stage; None returns every stage.
+
+    Returns
+    -------
+    list of float or float
+        Temperature after each stage, or after ``stage`` [°C].
+
+    References
+    ----------
+    .. [1] First law of thermodynamics (steady flow), see :func:`chain_temperatures`.
+    """
+    temps = chain_temperatures(t_water_in, water_flow_m3_h, _stage_values("duties_kw", duties_kw),
+                               glycol_fraction, glycol)
     if stage is None:
-        return layout(temps, lay if lay != "flat" else "row")
+        return temps
     k = _check_stage(stage, len(temps))
     return temps[k - 1]
 
@@ -549,38 +587,36 @@ def _rate_result(result) -> str:
     raise CellTypeError(f"result: {result!r} is not one of " + ", ".join(f'"{o}"' for o in RATE_RESULTS))
 
 
-def _optional_cells(name, rng):
-    if rng is None:
-        return None
-    return stage_cells(name, rng)[0]
+def hw_chain_rate(t_water_in, water_flow_m3_h, t_source_in, c_source_kw_k, ua_kw_k, arrangement="counter",
+                  result="t_out", glycol_fraction=0.0, glycol="ethylene", stage_kinds=None, duties_kw=None,
+                  t_engine_in_max=None, engine_flow_m3_h=None, stage=None, engine_glycol_fraction=0.0,
+                  engine_glycol="ethylene"):
+    """One result of :func:`rate_chain_water`: per stage, one stage's value, or a chain total.
 
+    Parameters are those of :func:`rate_chain_water` (stage lists as sequences
+    of float or None, ``stage_kinds`` a sequence of words or None), plus
+    ``result`` (one of :data:`RATE_RESULTS`) and ``stage`` (1-based, or None for
+    every stage).
 
-def _kind_cells(rng):
-    """Stage-kind words of a one-row or one-column range (blank = stream)."""
-    if rng is None:
-        return None
-    if isinstance(rng, str):
-        return [rng]
-    rows = [list(r) if isinstance(r, (list, tuple)) else [r] for r in rng]
-    if len(rows) > 1 and max(len(r) for r in rows) > 1:
-        raise CellTypeError(f"stage_kinds: a {len(rows)}×{max(len(r) for r in rows)} block was given; "
-                            "select one row or one column")
-    return [c for r in rows for c in r] if len(rows) == 1 else [r[0] if r else None for r in rows]
+    Returns
+    -------
+    list or float
+        Per stage: water or source temperature [°C], duty or dump [kW] ("" where
+        a stage has no such value); one stage's value; or a chain total [kW].
 
-
-def cell_chain_rate(t_water_in, water_flow_m3_h, t_source_in, c_source_kw_k, ua_kw_k, arrangement="counter",
-                    result="t_out", glycol_fraction=0.0, glycol="ethylene", stage_kinds=None, duties_kw=None,
-                    t_engine_in_max=None, engine_flow_m3_h=None, stage=None, engine_glycol_fraction=0.0,
-                    engine_glycol="ethylene"):
-    """HW_CHAIN_RATE: per stage values laid out like t_source_in, one stage's value, or a chain total."""
+    References
+    ----------
+    .. [1] See :func:`rate_chain_water` (ε-NTU rating, first law).
+    """
     word = _rate_result(result)
-    th, lay = stage_cells("t_source_in", t_source_in)
-    ch, _ = stage_cells("c_source_kw_k", c_source_kw_k)
-    ua, _ = stage_cells("ua_kw_k", ua_kw_k)
+    th = _stage_values("t_source_in", t_source_in)
+    ch = _stage_values("c_source_kw_k", c_source_kw_k)
+    ua = _stage_values("ua_kw_k", ua_kw_k)
+    kinds = [stage_kinds] if isinstance(stage_kinds, str) else stage_kinds
     res = rate_chain_water(t_water_in, water_flow_m3_h, th, ch, ua, arrangement, glycol_fraction, glycol,
-                           _kind_cells(stage_kinds), _optional_cells("duties_kw", duties_kw),
-                           _optional_cells("t_engine_in_max", t_engine_in_max),
-                           _optional_cells("engine_flow_m3_h", engine_flow_m3_h),
+                           None if kinds is None else list(kinds), _optional_values("duties_kw", duties_kw),
+                           _optional_values("t_engine_in_max", t_engine_in_max),
+                           _optional_values("engine_flow_m3_h", engine_flow_m3_h),
                            engine_glycol_fraction, engine_glycol)
     if word.startswith("total_"):
         if stage is not None:
@@ -589,13 +625,18 @@ def cell_chain_rate(t_water_in, water_flow_m3_h, t_source_in, c_source_kw_k, ua_
     vals = [r[word] if r[word] is not None else "" for r in res]
     if stage is not None:
         return vals[_check_stage(stage, len(vals)) - 1]
-    return layout(vals, lay if lay != "flat" else "row")
+    return vals
 
 
-def cell_chain_check(t_water_in, water_flow_m3_h, duties_kw, t_source_in, min_approach_k=5.0,
-                     glycol_fraction=0.0, glycol="ethylene", t_source_out=None):
-    """HW_CHAIN_CHECK: "OK" or the first finding at either end of a stage (one line)."""
-    cells, _ = stage_cells("duties_kw", duties_kw)
-    tmax, _ = stage_cells("t_source_in", t_source_in)
-    tlow = _optional_cells("t_source_out", t_source_out)
+def hw_chain_check(t_water_in, water_flow_m3_h, duties_kw, t_source_in, min_approach_k=5.0,
+                   glycol_fraction=0.0, glycol="ethylene", t_source_out=None):
+    """"OK" or the first finding at either end of a stage (one line); see :func:`chain_check`.
+
+    References
+    ----------
+    .. [1] See :func:`chain_check` (approach at both ends of each stage, common practice).
+    """
+    cells = _stage_values("duties_kw", duties_kw)
+    tmax = _stage_values("t_source_in", t_source_in)
+    tlow = _optional_values("t_source_out", t_source_out)
     return chain_check(t_water_in, water_flow_m3_h, cells, tmax, min_approach_k, glycol_fraction, glycol, tlow)

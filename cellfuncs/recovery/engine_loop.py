@@ -33,7 +33,7 @@ from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
 from cellfuncs.heat_transfer.arrangements import parse as _parse_arrangement
 from cellfuncs.recovery import water as _w
 
-__all__ = ["LOOP_RESULTS", "engine_loop", "loop_in_chain", "cell_hw_engine_loop"]
+__all__ = ["LOOP_RESULTS", "engine_loop", "loop_in_chain", "hw_engine_loop"]
 
 #: result words of HW_ENGINE_LOOP; "all" is a 1×4 row in this order
 LOOP_RESULTS = ("to_client", "dump", "t_water_out", "t_engine_out", "all")
@@ -249,12 +249,20 @@ def _result_word(result) -> str:
     raise CellTypeError(f"result: {result!r} is not one of " + ", ".join(f'"{o}"' for o in LOOP_RESULTS))
 
 
-def cell_hw_engine_loop(duty_kw, t_engine_in_max, engine_flow_m3_h, t_water_in, water_flow_m3_h, ua_kw_k,
-                        arrangement="counter", result="to_client", glycol_fraction=0.0, glycol="ethylene"):
-    """HW_ENGINE_LOOP: one result [kW or °C], or "all" as a 1×4 row."""
+def hw_engine_loop(duty_kw, t_engine_in_max, engine_flow_m3_h, t_water_in, water_flow_m3_h, ua_kw_k,
+                   arrangement="counter", result="to_client", glycol_fraction=0.0, glycol="ethylene"):
+    """One result of :func:`engine_loop` [kW or °C], or "all": the four as a list.
+
+    ``result`` is one of :data:`LOOP_RESULTS`; "all" returns to_client [kW],
+    dump [kW], t_water_out [°C], t_engine_out [°C] in that order.
+
+    References
+    ----------
+    .. [1] See :func:`engine_loop` (ε-NTU, first law).
+    """
     word = _result_word(result)
     r = engine_loop(duty_kw, t_engine_in_max, engine_flow_m3_h, t_water_in, water_flow_m3_h, ua_kw_k,
                     arrangement, glycol_fraction, glycol)
     if word == "all":
-        return [[r["to_client"], r["dump"], r["t_water_out"], r["t_engine_out"]]]
+        return [r["to_client"], r["dump"], r["t_water_out"], r["t_engine_out"]]
     return r[word]

@@ -17,7 +17,7 @@ from __future__ import annotations
 
 from cellfuncs.errors import CellInputError, check_range, fmt
 
-__all__ = ["exhaust_loss", "cell_exh_loss"]
+__all__ = ["exhaust_loss"]
 
 
 def exhaust_loss(exhaust_flow_kg_h: float, t_stack: float, air_ratio: float, comp, t_reference: float = 25.0,
@@ -79,12 +79,3 @@ def exhaust_loss(exhaust_flow_kg_h: float, t_stack: float, air_ratio: float, com
     w = _x.ambient_water(t_ambient, rh_ambient, p_ambient_bar)
     dh = _x.exhaust_enthalpy_drop(comp, lam, t_s, t_r, w, air)  # kJ/kg
     return m / 3600.0 * dh
-
-
-def cell_exh_loss(exhaust_flow_kg_h, t_stack, air_ratio, components, amounts=None, t_reference=25.0,
-                  t_ambient=25.0, rh_ambient=0.3, p_ambient_bar=1.0):
-    """EXH_LOSS [kW]."""
-    from cellfuncs.gas.composition import parse_composition
-
-    return exhaust_loss(exhaust_flow_kg_h, t_stack, air_ratio, parse_composition(components, amounts),
-                        t_reference, t_ambient, rh_ambient, p_ambient_bar)

@@ -14,8 +14,7 @@ from __future__ import annotations
 
 import math
 
-from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
-from cellfuncs.recovery._cells import numbers
+from cellfuncs.errors import CellInputError, CellTypeError, check_finite, check_range, fmt
 
 __all__ = ["chp_heat_rate", "chp_pes", "chp_balance", "chp_balance_check", "pes_reference", "grid_loss_factor",
            "BALANCE_OUTPUTS", "PES_FUELS", "PES_HEAT_USES"]
@@ -247,6 +246,15 @@ def chp_pes(electrical_efficiency: float, thermal_efficiency: float,
     return 1.0 - 1.0 / (th / ref_th + el / ref_el)
 
 
+def _heat_list(name: str, values) -> list:
+    """Heat flows as a list of finite floats (a single number counts as one flow)."""
+    if isinstance(values, (int, float)) and not isinstance(values, bool):
+        values = (values,)
+    if not isinstance(values, (tuple, list)):
+        raise CellTypeError(f"{name}: {values!r} is not a list of numbers")
+    return [check_finite(name, q) for q in values]
+
+
 def chp_balance(fuel_power_kw: float, electrical_kw: float, heat_kw, output: str = "total") -> float:
     """Energy balance of a CHP unit as fractions of the fuel power.
 
@@ -293,7 +301,7 @@ def chp_balance(fuel_power_kw: float, electrical_kw: float, heat_kw, output: str
     output = output.strip().lower()
     fuel = check_range("fuel_power_kw", fuel_power_kw, 0.0, None, "kW", lo_open=True)
     el = check_range("electrical_kw", electrical_kw, 0.0, None, "kW")
-    heats = numbers("heat_kw", heat_kw)
+    heats = _heat_list("heat_kw", heat_kw)
     for i, q in enumerate(heats, start=1):
         if q < 0:
             raise CellInputError(f"heat_kw: value {i} is {fmt(q)} kW; useful heat cannot be negative")
@@ -351,7 +359,7 @@ def chp_balance_check(fuel_power_kw: float, electrical_kw: float, heat_flows_kw,
     """
     fuel = check_range("fuel_power_kw", fuel_power_kw, 0.0, None, "kW", lo_open=True)
     el = check_range("electrical_kw", electrical_kw, 0.0, None, "kW")
-    heats = numbers("heat_flows_kw", heat_flows_kw)
+    heats = _heat_list("heat_flows_kw", heat_flows_kw)
     for i, q in enumerate(heats, start=1):
         if q < 0:
             raise CellInputError(f"heat_flows_kw: value {i} is {fmt(q)} kW; a heat flow leaving the plant "

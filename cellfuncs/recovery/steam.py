@@ -38,7 +38,6 @@ __all__ = [
     "RESULTS",
     "steam_balance",
     "exhaust_steam",
-    "cell_exh_steam",
 ]
 
 #: lowest drum pressure accepted [bar(a)]
@@ -248,13 +247,3 @@ def exhaust_steam(exhaust_flow_kg_h: float, t_exhaust_in: float, air_ratio: floa
                       pinch_k, approach_k)
     row = [b["steam_kg_h"], b["duty_kw"], b["t_stack"]]
     return row if r == "all" else row[RESULTS.index(r)]
-
-
-def cell_exh_steam(exhaust_flow_kg_h, t_exhaust_in, air_ratio, components, amounts=None,
-                   p_steam_bar=None, t_feedwater=None, pinch_k=10.0, result="steam", approach_k=0.0):
-    """EXH_STEAM: the gas as cell ranges (components, amounts) parsed, then :func:`exhaust_steam`."""
-    from cellfuncs.gas.composition import parse_composition
-
-    return exhaust_steam(exhaust_flow_kg_h, t_exhaust_in, air_ratio,
-                         parse_composition(components, amounts), p_steam_bar, t_feedwater,
-                         pinch_k, result, approach_k)

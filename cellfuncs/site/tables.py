@@ -31,16 +31,6 @@ def _is_blank(c) -> bool:
     return c is None or (isinstance(c, str) and c.strip() == "")
 
 
-def _cells(rng) -> tuple:
-    """A range as a tuple of rows (a flat list of numbers counts as one column)."""
-    if isinstance(rng, (int, float, str)) or rng is None:
-        return ((rng,),)
-    rows = tuple(rng)
-    if rows and not isinstance(rows[0], (list, tuple)):
-        return tuple((c,) for c in rows)
-    return tuple(tuple(r) for r in rows)
-
-
 def _number(name: str, where: str, c) -> float:
     if isinstance(c, bool) or not isinstance(c, (int, float)):
         raise CellTypeError(f"{name}: {where} holds {c!r}, not a number")
@@ -49,54 +39,40 @@ def _number(name: str, where: str, c) -> float:
     return float(c)
 
 
-def axis_values(name: str, rng, monotonic: bool = True) -> tuple:
-    """The numbers of a one-column or one-row range, trailing blanks dropped.
+def axis_values(name: str, values, monotonic: bool = True) -> tuple:
+    """The values of a table axis (or of a column of tabulated values), checked.
 
     Parameters
     ----------
     name : str
         Argument name for the error messages.
-    rng : range (tuple of rows), list
-        One column or one row of cells.
+    values : sequence of float
+        The values in table order, trailing blanks already dropped (the cell
+        adapter does that).  A sequence with ``layout == "row"`` (values read
+        across a row) numbers its values as columns in the messages, otherwise
+        as rows.
     monotonic : bool
         Require strictly increasing or strictly decreasing values (an axis).
 
     Returns
     -------
     values : tuple of float
-        The values in range order. [unit of the cells]
+        The values in order. [unit of the values]
 
     Raises
     ------
     CellInputError, CellTypeError
-        A two-dimensional range, a blank or text inside the values, fewer than
-        two values (axes), an axis not strictly monotonic (naming the first
-        offending row).
+        A value that is not a finite number, fewer than two values (axes), an
+        axis not strictly monotonic (naming the first offending row).
 
     References
     ----------
     .. [1] Common practice (reading a declared datasheet table).
     """
-    rows = _cells(rng)
-    if not rows or not rows[0]:
-        raise CellInputError(f"{name}: the range is empty")
-    if len(rows) > 1 and max(len(r) for r in rows) > 1:
-        raise CellInputError(f"{name}: a range of {len(rows)} rows and {max(len(r) for r in rows)} "
-                             "columns; give one column or one row")
-    if len(rows) == 1:
-        cells, word = list(rows[0]), "column"
-    else:
-        cells, word = [r[0] if r else None for r in rows], "row"
-    while cells and _is_blank(cells[-1]):
-        cells.pop()
-    if not cells:
+    word = "column" if getattr(values, "layout", None) == "row" else "row"
+    vals = tuple(_number(name, f"{word} {i}", c) for i, c in enumerate(values, start=1))
+    if not vals:
         raise CellInputError(f"{name}: the range holds only blanks")
-    vals = []
-    for i, c in enumerate(cells, start=1):
-        if _is_blank(c):
-            raise CellInputError(f"{name}: {word} {i} is blank inside the table (only trailing "
-                                 "blanks are ignored)")
-        vals.append(_number(name, f"{word} {i}", c))
     if monotonic:
         if len(vals) < 2:
             raise CellInputError(f"{name}: {len(vals)} value; a table needs at least two")
@@ -108,7 +84,7 @@ def axis_values(name: str, rng, monotonic: bool = True) -> tuple:
                     f"{name}: {word} {i + 1} ({fmt(vals[i])}) does not {trend} from {word} {i} "
                     f"({fmt(vals[i - 1])}); values must be strictly increasing or strictly "
                     "decreasing")
-    return tuple(vals)
+    return vals
 
 
 def _locate(name_x: str, x: float, name_xs: str, xs: tuple) -> tuple:
@@ -155,11 +131,11 @@ def table_interp(x: float, x_values, y_values) -> float:
     ----------
     x : float
         Where to read the table, inside the range of ``x_values``. [unit of x_values]
-    x_values : range
-        One column (or row) of strictly increasing or strictly decreasing
-        values; trailing blanks are ignored. [any unit]
-    y_values : range
-        The tabulated values, same length (trailing blanks ignored). [any unit]
+    x_values : sequence of float
+        Strictly increasing or strictly decreasing values (in a cell: one
+        column or row, trailing blanks dropped by the adapter). [any unit]
+    y_values : sequence of float
+        The tabulated values, same length. [any unit]
 
     Returns
     -------
@@ -195,7 +171,7 @@ def table_interp(x: float, x_values, y_values) -> float:
 
 
 def _grid(xs: tuple, ys: tuple, table) -> tuple:
-    rows = _cells(table)
+    rows = tuple(tuple(r) for r in table)
     n, m = len(xs), len(ys)
     out = []
     for r, row in enumerate(rows, start=1):
@@ -230,15 +206,14 @@ def table_interp2(x: float, y: float, x_values, y_values, table) -> float:
         Value on the row axis, inside the range of ``x_values``. [unit of x_values]
     y : float
         Value on the column axis, inside the range of ``y_values``. [unit of y_values]
-    x_values : range
-        The row axis: one column (or row) of strictly monotonic values, one per
-        table row; trailing blanks ignored. [any unit]
-    y_values : range
-        The column axis: one row (or column) of strictly monotonic values, one
-        per table column; trailing blanks ignored. [any unit]
-    table : range
+    x_values : sequence of float
+        The row axis: strictly monotonic values, one per table row. [any unit]
+    y_values : sequence of float
+        The column axis: strictly monotonic values, one per table column. [any unit]
+    table : sequence of sequences of float or None
         The tabulated values, rows matching ``x_values`` and columns matching
-        ``y_values``; blank spare rows and columns at the end are ignored. [any unit]
+        ``y_values``; blank (None) spare rows and columns at the end are
+        ignored. [any unit]
 
     Returns
     -------
