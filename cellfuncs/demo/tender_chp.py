@@ -4,7 +4,11 @@ Scenario (invented): the Ashcombe Vale district-heating plant, one gas-engine
 set on pipeline natural gas.  The engine's declared datasheet (invented, at the
 site's design conditions) sits on its own sheet and adds up to the fuel input.
 Gas properties and methane number → fuel flow → charge air (declared duties
-beside the computed ones) → knock margin → the engine's HT circuit (jacket
+beside the computed ones) → knock margin, also at the lowest methane number of
+the published methods → exhaust, the permit's emission limits converted and
+the acid dew point (only for a gas with H2S) → the site rating (ISO 2533
+pressure at the site's altitude, the declared derating and part-load tables
+read by TABLE_INTERP/TABLE_INTERP2) → the engine's HT circuit (jacket
 water, oil and HT charge-air stage) as one engine loop with one plate
 exchanger to the client, the exhaust exchanger after it, both rated in the
 chosen and the reversed order with the dump heat shown → the LT stage to a
@@ -239,7 +243,8 @@ def _emissions(e) -> None:
                'gas_amounts,o2_reference_pct,electrical_kw/fuel_power_kw,"net")', "g/kWh (electrical)",
                name=f"out_{sp}_g_kwh", result=sp == "nox", fmt="0.000")
         e.calc(f"{label} at the limit, full load", f"=out_{sp}_g_kwh*electrical_kw/1000", "kg/h",
-               name=f"{sp}_kg_h", fmt="0.00", note=f'="same as limit × dry flow: "&TEXT({lim}*dry_flow_ref/1E6,"0.00")')
+               name=f"{sp}_kg_h", fmt="0.00",
+               note=f'="same as limit × dry flow: "&TEXT({lim}*dry_flow_ref/1E6,"0.00")')
     e.note("Emission guarantees come from the engine's declared data; permits follow local law.")
     e.heading("Acid dew point beside the stack temperature")
     e.calc("H2S in the gas analysis", '=SUMIF(gas_names,"hydrogen sulfide",gas_amounts)+SUMIF(gas_names,"H2S",'
@@ -372,7 +377,9 @@ def _site(b: DemoBook) -> None:
            "(some take the lowest factor).")
 
     s.heading("Part load (TABLE_INTERP in the declared table; output at the available site power)")
-    s.table_row("load", ["el. efficiency", "th. efficiency", "electrical [kW]", "fuel [kW]"])
+    r = s.table_row("load", ["el. efficiency", "th. efficiency", "electrical [kW]", "fuel [kW]"])
+    for col in range(2, 6):
+        s.ws.cell(r, col).alignment = Alignment(horizontal="right")
     for load in PART_LOADS:
         el = f"TABLE_INTERP({load},part_load_axis,part_load_el)"
         s.table_row(f"{load} %", [f"={el}", f"=TABLE_INTERP({load},part_load_axis,part_load_th)",
