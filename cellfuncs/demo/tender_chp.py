@@ -4,7 +4,11 @@ Scenario (invented): the Ashcombe Vale district-heating plant, one gas-engine
 set on pipeline natural gas.  The engine's declared datasheet (invented, at the
 site's design conditions) sits on its own sheet and adds up to the fuel input.
 Gas properties and methane number → fuel flow → charge air (declared duties
-beside the computed ones) → knock margin → the engine's HT circuit (jacket
+beside the computed ones) → knock margin, also at the lowest methane number of
+the published methods → exhaust, the permit's emission limits converted and
+the acid dew point (only for a gas with H2S) → the site rating (ISO 2533
+pressure at the site's altitude, the declared derating and part-load tables
+read by TABLE_INTERP/TABLE_INTERP2) → the engine's HT circuit (jacket
 water, oil and HT charge-air stage) as one engine loop with one plate
 exchanger to the client, the exhaust exchanger after it, both rated in the
 chosen and the reversed order with the dump heat shown → the LT stage to a
@@ -15,7 +19,9 @@ the reference values of Delegated Regulation (EU) 2015/2402 → a summary.
 
 from __future__ import annotations
 
-from cellfuncs.demo.book import _INPUT_FILL, DemoBook
+from openpyxl.styles import Alignment, Font
+
+from cellfuncs.demo.book import _BOX, _INPUT_FILL, DemoBook
 from cellfuncs.heat_transfer.arrangements import ARRANGEMENTS
 
 FILENAME = "tender_chp.xlsx"
@@ -59,6 +65,24 @@ DATASHEET = (
 BALANCE_ITEMS = ("electrical_kw", "q_jacket_kw", "q_oil_kw", "q_cac_ht_kw", "q_cac_lt_kw", "q_exhaust_kw",
                  "q_exhaust_loss_kw", "q_radiation_kw")
 
+#: invented declared derating by altitude (rows) and intake-air temperature (columns), a factor on the
+#: declared electrical output; full output up to 500 m and 30 °C, as the datasheet's design point needs
+DERATE_ALTITUDES = (0, 250, 500, 1000, 1500, 2000)
+DERATE_TEMPERATURES = (-20, 25, 30, 35, 40, 45)
+DERATE = ((1.00, 1.00, 1.00, 0.98, 0.94, 0.89),
+          (1.00, 1.00, 1.00, 0.97, 0.93, 0.88),
+          (1.00, 1.00, 0.98, 0.95, 0.91, 0.86),
+          (0.97, 0.97, 0.94, 0.91, 0.87, 0.82),
+          (0.92, 0.92, 0.89, 0.86, 0.82, 0.78),
+          (0.87, 0.87, 0.84, 0.81, 0.78, 0.74))
+#: invented declared derating by methane number: full output from the knock reference's MN 80 up
+MN_DERATE = ((60, 0.70), (65, 0.78), (70, 0.86), (75, 0.93), (80, 1.00), (100, 1.00))
+#: invented declared part-load table: load [%], electrical and thermal efficiency (net); the 100 % row is
+#: the datasheet's full-load figures (formulas), thermal = HT circuit + exhaust to 120 °C
+PART_LOAD = ((40, 0.365, 0.505), (60, 0.395, 0.482), (80, 0.414, 0.463),
+             (100, "=electrical_kw/fuel_power_kw", "=(q_ht_kw+q_exhaust_kw)/fuel_power_kw"))
+PART_LOADS = (50, 75, 100)
+
 AMB = "t_ambient,rh_ambient,p_ambient_bar"
 MIX = "air_ratio,gas_names,gas_amounts," + AMB
 SHEET_RATED = "Rated order"
@@ -74,6 +98,8 @@ def _inputs(b: DemoBook) -> None:
     b.input("t_ambient", "Ambient air temperature (design day)", 30, "°C")
     b.input("rh_ambient", "Ambient relative humidity", 0.55, "-", "fraction 0–1")
     b.input("p_ambient_bar", "Ambient pressure", 0.99, "bar(a)")
+    b.input("site_altitude_m", "Site altitude", 200, "m",
+            "its standard-atmosphere pressure (ISO 2533) is on the Site rating sheet")
     b.input_heading("Client's hot water and design choices")
     b.input("t_water_in", "Hot-water return (client's water entering the plant)", 60, "°C")
     b.input("t_water_out", "Hot-water flow wanted", 90, "°C")
@@ -95,6 +121,10 @@ def _inputs(b: DemoBook) -> None:
     b.input("t_lt_cold", "LT coolant entering the LT charge-air stage", 40, "°C")
     b.input("t_air_out_lt", "Air leaving the LT dry cooler", 38, "°C")
     b.input("t_air_out_ht", "Air leaving the HT emergency cooler", 45, "°C")
+    b.input_heading("Emission limits (invented permit, dry exhaust at the reference O2)")
+    b.input("nox_limit_mg_nm3", "NOx limit (as NO2)", 500, "mg/Nm³", "0 °C, 1.01325 bar, dry")
+    b.input("co_limit_mg_nm3", "CO limit", 300, "mg/Nm³", "0 °C, 1.01325 bar, dry")
+    b.input("o2_reference_pct", "Reference O2 of the limits", 5, "vol-%", "dry exhaust")
     b.input_heading("Primary energy savings (Delegated Regulation (EU) 2015/2402)")
     b.input("pes_fuel", "Fuel of the reference values", "natural-gas", "", "Annexes I and II",
             options=("natural-gas", "biogas", "refinery-gas", "waste-gas", "oil", "bio-liquid"))
@@ -128,13 +158,14 @@ def _datasheet(b: DemoBook) -> None:
 
 def _gas_and_air(b: DemoBook) -> None:
     g = b.sheet("Gas and air", "Gas, fuel and charge air (computed beside the declared figures)")
-    g.calc("Net calorific value (25/0)", '=GAS_CV(gas_names,gas_amounts,"net","volume","25/0")', "MJ/m³",
+    g.calc("Net calorific value", '=GAS_CV(gas_names,gas_amounts,"net","volume","25/0")', "MJ/m³ (net, 25/0)",
            name="cv_net", fmt="0.000")
-    g.calc("Wobbe index (gross, 15/15)", '=GAS_WOBBE(gas_names,gas_amounts,"gross","15/15")', "MJ/m³",
+    g.calc("Wobbe index", '=GAS_WOBBE(gas_names,gas_amounts,"gross","15/15")', "MJ/m³ (gross, 15/15)",
            name="wobbe", fmt="0.000")
     g.calc("Methane number (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,gas_amounts)", "-",
            name="mn_gas", fmt="0.0")
-    g.calc("Fuel gas flow (25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_power_kw,"net","25/0")', "m³/h",
+    g.calc("Fuel gas flow (net calorific value, 25/0)", '=GAS_FUEL_FLOW(gas_names,gas_amounts,fuel_power_kw,"net",'
+           '"25/0")', "m³/h (0 °C)",
            name="out_fuel_flow", result=True, fmt="0.0")
     g.calc("Mixture mass flow", f'=CAC_MIXTURE_FLOW(fuel_power_kw,air_ratio,gas_names,gas_amounts,"net",{AMB},'
            '"mixture")', "kg/h", name="mixture_flow_kg_h", fmt="0")
@@ -153,6 +184,22 @@ def _gas_and_air(b: DemoBook) -> None:
     g.calc("Knock margin at the intake temperature", "=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,"
            'mn_gas,t_mixture_ref,p_boost_bar_ref,mn_ref,compression_ratio,"K")', "K", name="out_knock_k",
            result=True, fmt="0.0")
+    g.heading("Methane number by method: the spread and the knock margin at its lowest")
+    g.calc("Methane-number spread (highest − lowest method)",
+           '=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,"spread")', "-", name="mn_spread", fmt="0.0")
+    g.calc("Lowest methane number of the methods", '=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,"lowest")',
+           "-", name="mn_lowest", fmt="0.0")
+    g.calc("Each method's methane number", '=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,"methods")', "",
+           name="mn_methods")
+    g.calc("Knock margin at the default MN (EN 16726 Annex A)", "=out_knock_k", "K", fmt="0.0")
+    g.calc("Knock margin at the lowest MN of the methods", "=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,"
+           'mn_lowest,t_mixture_ref,p_boost_bar_ref,mn_ref,compression_ratio,"K")', "K", name="out_knock_k_mn_low",
+           result=True, fmt="0.0")
+    g.note("Published methods differ by 5–10 MN on the same gas (EN 16726 Annex A; Kubesh, King & Liss 1992 with "
+           "the paper's or ISO 15403-1's MON-to-MN): judge the margin at the lowest.")
+    g.note("The engine's required methane number, and the method it is stated in, come from the engine's declared "
+           "datasheet.")
+    g.row += 1
     g.calc("Methane number needed", "=KNOCK_MN_REQUIRED(t_mixture,p_boost_bar,compression_ratio,t_mixture_ref,"
            "p_boost_bar_ref,mn_ref,compression_ratio)", "-", name="mn_needed", fmt="0.0")
     g.calc("Shaft power", "=electrical_kw/generator_efficiency", "kW", name="shaft_kw", fmt="0")
@@ -173,6 +220,41 @@ def _gas_and_air(b: DemoBook) -> None:
            "-", name="o2_dry", fmt="0.00%")
     e.calc("Exhaust capacity rate (mean, turbine outlet to stack)", "=q_exhaust_calc/(t_exhaust_in-t_stack)",
            "kW/K", name="c_exhaust_kw_k", fmt="0.000")
+    _emissions(e)
+
+
+def _emissions(e) -> None:
+    """The permit's limits converted (EMIS_CONVERT, EXH_DRY_VOLUME) and the acid dew point beside the stack."""
+    e.heading("Emission limits converted (invented permit; dry exhaust at the reference O2 of the Inputs)")
+    e.calc("Dry exhaust per kWh of fuel at the reference O2 (F-factor)",
+           '=EXH_DRY_VOLUME(gas_names,gas_amounts,o2_reference_pct,"net")', "Nm³/kWh (net)", name="dry_volume_ref",
+           fmt="0.0000")
+    e.calc("Dry exhaust flow at the reference O2, full load", "=dry_volume_ref*fuel_power_kw", "Nm³/h",
+           name="dry_flow_ref", fmt="0")
+    e.calc("Dry exhaust flow at the engine's own O2, full load",
+           '=EXH_DRY_VOLUME(gas_names,gas_amounts,100*o2_dry,"net")*fuel_power_kw', "Nm³/h", name="dry_flow_actual",
+           fmt="0")
+    for sp, word, lim in (("nox", "NOx", "nox_limit_mg_nm3"), ("co", "CO", "co_limit_mg_nm3")):
+        label = "NOx (as NO2)" if sp == "nox" else "CO"
+        e.calc(f"{label} limit", f"={lim}", "mg/Nm³ (dry, ref. O2)", fmt="0")
+        e.calc(f"{label} limit in ppm", f'=EMIS_CONVERT({lim},"mg/Nm3","ppm","{word}",gas_names,gas_amounts,'
+               'o2_reference_pct)', "ppm (dry, ref. O2)", name=f"{sp}_ppm", fmt="0.0")
+        e.calc(f"{label} limit per kWh of electricity", f'=EMIS_CONVERT({lim},"mg/Nm3","g/kWh","{word}",gas_names,'
+               'gas_amounts,o2_reference_pct,electrical_kw/fuel_power_kw,"net")', "g/kWh (electrical)",
+               name=f"out_{sp}_g_kwh", result=sp == "nox", fmt="0.000")
+        e.calc(f"{label} at the limit, full load", f"=out_{sp}_g_kwh*electrical_kw/1000", "kg/h",
+               name=f"{sp}_kg_h", fmt="0.00",
+               note=f'="same as limit × dry flow: "&TEXT({lim}*dry_flow_ref/1E6,"0.00")')
+    e.note("Emission guarantees come from the engine's declared data; permits follow local law.")
+    e.heading("Acid dew point beside the stack temperature")
+    e.calc("H2S in the gas analysis", '=SUMIF(gas_names,"hydrogen sulfide",gas_amounts)+SUMIF(gas_names,"H2S",'
+           'gas_amounts)+SUMIF(gas_names,"hydrogen sulphide",gas_amounts)', "mol-%", name="h2s_pct", fmt="0.0000")
+    e.calc("Sulphuric-acid dew point (Verhoff & Banchero 1974)",
+           f'=IF(h2s_pct>0,TEXT(EXH_ACID_DEWPOINT(air_ratio,gas_names,gas_amounts,1.01325,{AMB}),"0.0")&'
+           '" °C acid dew point, stack at "&TEXT(t_stack,"0")&" °C","no sulphur in the gas — no acid dew point")',
+           "", name="acid_dewpoint", note="2 % of the sulphur as SO3 (common practice 1–5 %)")
+    e.note("The invented pipeline gas's analysis holds no H2S (odorant sulphur, a few mg/m³, is not in it), so the "
+           "stack is limited by the water dew point above.")
 
 
 def _sizing(b: DemoBook) -> None:
@@ -215,6 +297,99 @@ def _sizing(b: DemoBook) -> None:
            't_ambient,t_air_out_ht,"cross",ht_glycol_fraction,"ethylene")', "kW/K", name="ua_ht_dump", fmt="0.00")
     c.calc("HT emergency cooler air flow", "=DRYCOOLER_AIR_FLOW(q_ht_kw,t_ambient,t_air_out_ht,rh_ambient,"
            "p_ambient_bar)", "m³/h", name="air_flow_ht", fmt="0")
+
+
+def _grid(s, r0: int, c0: int, rows, fmt="0.00") -> None:
+    """Declared values (sand fill, boxed) from row r0, column c0 of a calculation sheet."""
+    for i, row in enumerate(rows):
+        for j, v in enumerate(row):
+            c = s.ws.cell(r0 + i, c0 + j, v)
+            c.border = _BOX
+            c.number_format = fmt if j or c0 > 2 else "0"
+            if not (isinstance(v, str) and v.startswith("=")):
+                c.fill = _INPUT_FILL
+
+
+def _site(b: DemoBook) -> None:
+    s = b.sheet("Site rating", "Site rating: pressure, declared derating, methane number and part load")
+    for col in "BCDEFGHI":
+        s.ws.column_dimensions[col].width = 15
+    s.note("Declared tables of the invented engine (invented figures, as its datasheet would give them). A spare "
+           "blank row and column end each table:")
+    s.note("TABLE_INTERP and TABLE_INTERP2 ignore them, and refuse to extrapolate beyond a table.")
+    s.heading("Site")
+    s.calc("Site altitude (Inputs)", "=site_altitude_m", "m", fmt="0")
+    s.calc("Standard-atmosphere pressure at the site (ISO 2533)", "=SITE_PRESSURE(site_altitude_m)", "bar(a)",
+           name="out_site_pressure", result=True, fmt="0.0000")
+    s.calc("Design-day ambient pressure (Inputs) − standard atmosphere", "=p_ambient_bar-out_site_pressure", "bar",
+           fmt="0.000", note="the day's weather moves the pressure")
+    s.calc("Design intake-air temperature (Inputs: design-day ambient)", "=t_ambient", "°C", fmt="0.0")
+
+    s.heading("Declared derating by altitude and intake-air temperature [factor on the declared output]")
+    r0 = s.row
+    s.ws.cell(r0, 1, "altitude [m] ↓ · intake air [°C] →")
+    _grid(s, r0, 3, [DERATE_TEMPERATURES + (None,)], "0")
+    rows = [(a,) + f + (None,) for a, f in zip(DERATE_ALTITUDES, DERATE)] + [(None,) * 8]
+    _grid(s, r0 + 1, 2, rows)
+    last_r, last_c = r0 + len(rows), "I"
+    b.name("derate_altitudes", f"'Site rating'!$B${r0 + 1}:$B${last_r}")
+    b.name("derate_temperatures", f"'Site rating'!$C${r0}:${last_c}${r0}")
+    b.name("derate_table", f"'Site rating'!$C${r0 + 1}:${last_c}${last_r}")
+    s.row = last_r + 2
+
+    s.heading("Declared derating by methane number, and declared part load (net calorific value)")
+    r0 = s.row
+    for col, text in ((2, "MN"), (3, "factor"), (5, "load [%]"), (6, "el. efficiency"),
+                      (7, "th. efficiency")):
+        c = s.ws.cell(r0, col, text)
+        c.font = Font(bold=True)
+        c.alignment = Alignment(horizontal="right")
+    _grid(s, r0 + 1, 2, list(MN_DERATE) + [(None, None)])
+    _grid(s, r0 + 1, 5, list(PART_LOAD) + [(None, None, None)], "0.000")
+    for i in range(len(PART_LOAD) + 1):
+        s.ws.cell(r0 + 1 + i, 5).number_format = "0"
+    last_mn, last_pl = r0 + len(MN_DERATE) + 1, r0 + len(PART_LOAD) + 1
+    b.name("mn_axis", f"'Site rating'!$B${r0 + 1}:$B${last_mn}")
+    b.name("mn_factors", f"'Site rating'!$C${r0 + 1}:$C${last_mn}")
+    b.name("part_load_axis", f"'Site rating'!$E${r0 + 1}:$E${last_pl}")
+    b.name("part_load_el", f"'Site rating'!$F${r0 + 1}:$F${last_pl}")
+    b.name("part_load_th", f"'Site rating'!$G${r0 + 1}:$G${last_pl}")
+    s.row = max(last_mn, last_pl) + 1
+    s.note("The 100 % row is the datasheet's full load: electrical output, and HT circuit + exhaust to 120 °C, "
+           "over the fuel input.")
+
+    s.heading("Available power at the site")
+    s.calc("Factor for altitude and intake temperature (TABLE_INTERP2)", "=TABLE_INTERP2(site_altitude_m,t_ambient,"
+           "derate_altitudes,derate_temperatures,derate_table)", "-", name="site_factor", fmt="0.000")
+    s.calc("Factor for the gas's methane number (default method)", "=TABLE_INTERP(mn_gas,mn_axis,mn_factors)", "-",
+           name="mn_factor", fmt="0.000")
+    s.calc("Factor at the lowest methane number of the methods", "=TABLE_INTERP(mn_lowest,mn_axis,mn_factors)", "-",
+           name="mn_factor_low", fmt="0.000")
+    s.calc("Available site power (declared output × factors)", "=electrical_kw*site_factor*mn_factor", "kW",
+           name="out_site_power", result=True, fmt="0")
+    s.calc("Available site power at the lowest methane number", "=electrical_kw*site_factor*mn_factor_low", "kW",
+           name="out_site_power_mn_low", fmt="0")
+    s.calc("Declared output available at the site?", '=IF(MIN(out_site_power,out_site_power_mn_low)>=electrical_kw,'
+           '"OK: the declared "&TEXT(electrical_kw,"0")&" kW at this site and gas",'
+           '"DERATED to "&TEXT(MIN(out_site_power,out_site_power_mn_low),"0")&" kW: the plant balance uses the '
+           'declared output")', "", name="site_power_check")
+    s.note("The factors multiply, per the invented datasheet's combination rule; follow the engine's own datasheet "
+           "(some take the lowest factor).")
+
+    s.heading("Part load (TABLE_INTERP in the declared table; output at the available site power)")
+    r = s.table_row("load", ["el. efficiency", "th. efficiency", "electrical [kW]", "fuel [kW]"])
+    for col in range(2, 6):
+        s.ws.cell(r, col).alignment = Alignment(horizontal="right")
+    for load in PART_LOADS:
+        el = f"TABLE_INTERP({load},part_load_axis,part_load_el)"
+        s.table_row(f"{load} %", [f"={el}", f"=TABLE_INTERP({load},part_load_axis,part_load_th)",
+                                  f"={load}/100*out_site_power", f"={load}/100*out_site_power/{el}"], "", "0.000")
+        r = s.row - 1
+        b.name(f"part_load_el_{load}", f"'Site rating'!$B${r}")
+        b.name(f"part_load_th_{load}", f"'Site rating'!$C${r}")
+        for col in (4, 5):
+            s.ws.cell(r, col).number_format = "0"
+    s.note("Derating and part-load figures come from the engine's declared datasheet; these are invented.")
 
 
 def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
@@ -312,6 +487,7 @@ def build(path: str) -> None:
     _inputs(b)
     _datasheet(b)
     _gas_and_air(b)
+    _site(b)
     _sizing(b)
     _rated(b)
     _balance(b)
@@ -319,11 +495,16 @@ def build(path: str) -> None:
     r = b.sheet("Results", "Tender summary — Ashcombe Vale district heating (invented)")
     r.calc("Balance check (first law, net calorific value)", "=out_balance_check", "")
     r.calc("Datasheet check", "=datasheet_check", "")
-    r.calc("Electrical output", "=out_electrical", "kW", fmt="0")
+    r.calc("Site altitude / standard-atmosphere pressure", '=TEXT(site_altitude_m,"0")&" m / "&'
+           'TEXT(out_site_pressure,"0.000")&" bar(a)"', "")
+    r.calc("Available site power (declared × site and MN factors)", "=out_site_power", "kW", result=True, fmt="0")
+    r.calc("Electrical output (declared)", "=out_electrical", "kW", fmt="0")
     r.calc("Fuel power (net)", "=out_fuel_power", "kW", fmt="0")
-    r.calc("Fuel gas flow (25/0)", "=out_fuel_flow", "m³/h", result=True, fmt="0.0")
-    r.calc("Methane number of the gas / needed", '=TEXT(mn_gas,"0.0")&" / "&TEXT(mn_needed,"0.0")', "-")
-    r.calc("Knock margin at the intake temperature", "=out_knock_k", "K", result=True, fmt="0.0")
+    r.calc("Fuel gas flow (net calorific value, 25/0)", "=out_fuel_flow", "m³/h (0 °C)", result=True, fmt="0.0")
+    r.calc("Methane number: default method / lowest method / needed", '=TEXT(mn_gas,"0.0")&" / "&TEXT(mn_lowest,'
+           '"0.0")&" / "&TEXT(mn_needed,"0.0")', "-")
+    r.calc("Knock margin at the intake temperature (default MN)", "=out_knock_k", "K", result=True, fmt="0.0")
+    r.calc("Knock margin at the lowest methane number", "=out_knock_k_mn_low", "K", result=True, fmt="0.0")
     r.calc("Charge-air condensation", "=dew_check", "")
     r.calc("Heat to the client (chosen order)", "=out_heat_to_client", "kW", result=True, fmt="0")
     r.calc("Heat dumped (HT dump cooler + LT dry cooler)", "=out_dump_heat", "kW", result=True, fmt="0")
@@ -340,6 +521,9 @@ def build(path: str) -> None:
     r.calc("Electrical / thermal / total efficiency",
            '=TEXT(eta_el,"0.0%")&" / "&TEXT(eta_th,"0.0%")&" / "&TEXT(out_eta_total,"0.0%")', "-")
     r.calc("Primary energy savings", "=out_pes", "-", result=True, fmt="0.0%")
+    r.calc("NOx limit per kWh of electricity", '=TEXT(nox_limit_mg_nm3,"0")&" mg/Nm³ at "&TEXT(o2_reference_pct,'
+           '"0")&" % O2 = "&TEXT(out_nox_g_kwh,"0.00")&" g/kWh"', "")
+    r.calc("Acid dew point", "=acid_dewpoint", "")
     r.calc("Computed with cellfuncs", "=CELLFUNCS_VERSION()", "")
     b.finish()
     b.save(path)
@@ -353,6 +537,8 @@ def summary(v: dict) -> list:
     return [f"fuel {f('out_fuel_flow')} m³/h; knock margin {f('out_knock_k')} K; heat to client "
             f"{f('out_heat_to_client', 0)} kW; dumped {f('out_dump_heat', 0)} kW; PES {f('out_pes', 3)}; "
             f"total efficiency {f('out_eta_total', 3)}",
+            f"site {f('out_site_pressure', 4)} bar, {f('out_site_power', 0)} kW available; lowest MN "
+            f"{f('mn_lowest')}, knock margin there {f('out_knock_k_mn_low')} K; NOx {f('out_nox_g_kwh', 2)} g/kWh",
             f"balance: {v.get('out_balance_check')}",
             f"chosen order: {v.get('rated_a_check')}",
             f"reversed order: {v.get('rated_b_check')}; HT dump {f('rated_b_dump', 0)} kW"]
