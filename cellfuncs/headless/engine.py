@@ -517,6 +517,38 @@ class Model:
     def messages_by_cell(self) -> dict:
         return {self.tags[t]: m for t, m in self.messages.items() if t in self.tags}
 
+    def _trace(self, cells: list, direction: str) -> set | None:
+        """Every cell reached from ``cells`` [(sheet, row, col)] in ``direction`` ("Dependents" or
+        "Precedents"), the roots included; None when that is not known for sure (references built at
+        run time by INDIRECT or OFFSET, a trace that stopped at its budget, a node that is not a cell).
+        """
+        if self.functions & {"INDIRECT", "OFFSET"}:
+            return None  # references built at run time are not traced
+        roots = [f"'{s}'!{col_letters(c)}{r}" if not s.isalnum() else f"{s}!{col_letters(c)}{r}"
+                 for s, r, c in cells]
+        try:
+            t = self.wb.trace(roots, direction=getattr(fz().TraceDirection, direction), max_depth=10_000,
+                              max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000,
+                              range_member_budget=1_000_000)
+        except Exception:  # noqa: BLE001 - unknown
+            return None
+        try:
+            if t.truncation.incomplete:
+                return None  # the trace stopped at its budget
+        except AttributeError:
+            return None
+        from .book import parse_ref
+
+        out = set()
+        for addr in t.nodes.keys():
+            sheet, _, ref = addr.rpartition("!")
+            sheet = sheet[1:-1].replace("''", "'") if sheet.startswith("'") else sheet
+            pos = parse_ref(ref)
+            if not pos:
+                return None
+            out.add((sheet, pos[0], pos[1]))
+        return out
+
     def dependents(self, cells: list) -> set:
         """Every cell that depends (directly or not) on ``cells`` [(sheet, row, col)].
 
@@ -548,6 +580,37 @@ class Model:
                 out.add((sheet, pos[0], pos[1]))
         return out
 
+    def keep_only(self, cells: list) -> int:
+        """Empty, in the engine, every formula cell that ``cells`` do not depend on.
+
+        For ``cases``: only the outputs are read, and the engine's partial evaluation may
+        evaluate more than the cells asked for (a dynamic reference such as INDEX of a range
+        makes it evaluate everything dirty).  Nothing is emptied when the precedents are not
+        known for sure (see :meth:`_trace`) or the workbook has what-if data tables (computed
+        around the engine).  A cell of a legacy array range brings its anchor's formula along.
+        Returns the number of formula cells emptied, None when nothing was (every formula
+        stays; evaluate the cells asked for, not everything).
+        """
+        if self.data_tables:
+            return None
+        need = set(cells)
+        roots = list(cells)
+        while roots:
+            found = self._trace(roots, "Precedents")
+            if found is None:
+                return None
+            need |= found
+            roots = []
+            for s, r, c in found:
+                anchor = self.arrays.get((s, r, c))
+                if anchor and (s, *anchor) not in need:
+                    need.add((s, *anchor))
+                    roots.append((s, *anchor))
+        drop = [k for k in self.formula_cells if k not in need and k not in self.arrays]
+        for s, r, c in drop:
+            self.wb.set_value(s, r, c, None)
+        self._snap = {}
+        return len(drop)
 
 
 def _names_for_engine(xml: str, catalogue_names, sheets) -> bytes:
