@@ -275,6 +275,7 @@ class Model:
         self._snap = {}
         sets = sets or {}
         out_parts = {}
+        sheet_names = book.sheet_names  # a list built on each access: once, not once per cell
         for sheet, path in book.sheets:
             cells = book.cells.get(sheet)
             if cells is None:
@@ -312,7 +313,7 @@ class Model:
                     continue
                 tag = TAG + str(len(self.tags))
                 shared = cell.ftype == "shared"
-                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag, book.sheet_names)
+                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag, sheet_names)
                 if not shared:
                     self.tags[tag] = key
                 self.functions |= rw.functions
