@@ -581,12 +581,12 @@ class Model:
                 out.add((sheet, pos[0], pos[1]))
         return out
 
-    def keep_only(self, cells: list) -> int:
+    def keep_only(self, cells: list) -> int | None:
         """Empty, in the engine, every formula cell that ``cells`` do not depend on.
 
         For ``cases``: only the outputs are read, and the engine's partial evaluation may
-        evaluate more than the cells asked for (a dynamic reference such as INDEX of a range
-        makes it evaluate everything dirty).  Nothing is emptied when the precedents are not
+        evaluate more than the cells asked for (in the tender demo it evaluated every dirty
+        formula, a whole sheet no output reads included).  Nothing is emptied when the precedents are not
         known for sure (see :meth:`_trace`) or the workbook has what-if data tables (computed
         around the engine).  A cell of a legacy array range brings its anchor's formula along.
         Returns the number of formula cells emptied, None when nothing was (every formula
@@ -600,6 +600,7 @@ class Model:
             found = self._trace(roots, "Precedents")
             if found is None:
                 return None
+            found |= set(roots)
             need |= found
             roots = []
             for s, r, c in found:
