@@ -518,10 +518,11 @@ class Model:
     def messages_by_cell(self) -> dict:
         return {self.tags[t]: m for t, m in self.messages.items() if t in self.tags}
 
-    def _trace(self, cells: list, direction: str) -> set | None:
+    def _trace(self, cells: list, direction: str, range_budget: int = 256, strict: bool = False):
         """Every cell reached from ``cells`` [(sheet, row, col)] in ``direction`` ("Dependents" or
-        "Precedents"), the roots included; None when that is not known for sure (references built at
-        run time by INDIRECT or OFFSET, a trace that stopped at its budget, a node that is not a cell).
+        "Precedents"), as a set; None when that is not known for sure: references built at run
+        time (INDIRECT, OFFSET), a trace that stopped at its budget (``range_budget`` = cells of a
+        range followed), and with ``strict`` a node that is not one cell.
         """
         if self.functions & {"INDIRECT", "OFFSET"}:
             return None  # references built at run time are not traced
@@ -530,7 +531,7 @@ class Model:
         try:
             t = self.wb.trace(roots, direction=getattr(fz().TraceDirection, direction), max_depth=10_000,
                               max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000,
-                              range_member_budget=1_000_000)
+                              range_member_budget=range_budget)
         except Exception:  # noqa: BLE001 - unknown
             return None
         try:
@@ -545,9 +546,10 @@ class Model:
             sheet, _, ref = addr.rpartition("!")
             sheet = sheet[1:-1].replace("''", "'") if sheet.startswith("'") else sheet
             pos = parse_ref(ref)
-            if not pos:
+            if pos:
+                out.add((sheet, pos[0], pos[1]))
+            elif strict:
                 return None
-            out.add((sheet, pos[0], pos[1]))
         return out
 
     def dependents(self, cells: list) -> set:
@@ -556,30 +558,7 @@ class Model:
         None when that is not known for sure (references built at run time by INDIRECT or
         OFFSET, or a trace that stopped at its budget): callers then treat every cell as dependent.
         """
-        if self.functions & {"INDIRECT", "OFFSET"}:
-            return None  # references built at run time are not traced: every cell counts as dependent
-        roots = [f"'{s}'!{col_letters(c)}{r}" if not s.isalnum() else f"{s}!{col_letters(c)}{r}"
-                 for s, r, c in cells]
-        out = set()
-        try:
-            t = self.wb.trace(roots, direction=fz().TraceDirection.Dependents, max_depth=10_000,
-                              max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000)
-        except Exception:  # noqa: BLE001 - unknown: every cell counts as dependent
-            return None
-        try:
-            if t.truncation.incomplete:
-                return None  # the trace stopped at its budget: every cell counts as dependent
-        except AttributeError:
-            return None
-        from .book import parse_ref
-
-        for addr in t.nodes.keys():
-            sheet, _, ref = addr.rpartition("!")
-            sheet = sheet[1:-1].replace("''", "'") if sheet.startswith("'") else sheet
-            pos = parse_ref(ref)
-            if pos:
-                out.add((sheet, pos[0], pos[1]))
-        return out
+        return self._trace(cells, "Dependents")
 
     def keep_only(self, cells: list) -> int | None:
         """Empty, in the engine, every formula cell that ``cells`` do not depend on.
@@ -597,7 +576,7 @@ class Model:
         need = set(cells)
         roots = list(cells)
         while roots:
-            found = self._trace(roots, "Precedents")
+            found = self._trace(roots, "Precedents", range_budget=1_000_000, strict=True)
             if found is None:
                 return None
             found |= set(roots)
