@@ -11,6 +11,7 @@ A script (the figures go into docs/performance.md), not a timed test:
   stands (workbooks_demo/tender_chp.xlsx); reference: a bare ``python -c pass`` (and, for scale,
   ``python -c "import CoolProp.CoolProp"``, the water-property import plain water no longer needs).
 * ``cases``: 1,000 cases of that workbook with 1 and 2 workers; reference: one cold recalc of it.
+* ``cases-demo`` (not in the default set; no target): the same rows over the current demo.
 * ``big``: 40,000 built-in formula cells; reference: ``soffice --headless --convert-to xlsx`` of the
   same file (skipped without soffice).
 * ``sum``: a 5 KB book with ``=SUM(C1:L1000000)``; ``cols``: ten whole-column references.
@@ -105,6 +106,24 @@ def bench_cases(d):
              *w, ref=ref[0])
 
 
+def bench_cases_demo(d):
+    """(no target) the same 1,000 rows over the current demo, whose inputs were renamed."""
+    rng = random.Random(1)
+    path = os.path.join(d, "cases_demo.csv")
+    with open(path, "w", newline="") as fh:
+        wr = csv.writer(fh)
+        wr.writerow(["t_ambient", "rh_ambient", "t_water_in", "t_water_out"])
+        for _ in range(1000):
+            wr.writerow([round(rng.uniform(-5, 38), 1), round(rng.uniform(0.2, 0.95), 2),
+                         rng.choice([55, 60, 65]), rng.choice([85, 90])])
+    ref = best(RUNS, [PY, "-m", "cellfuncs.cli", "recalc", str(DEMO), "-o", os.path.join(d, "t.xlsx")])
+    line("reference: one cold recalc of workbooks_demo/tender_chp.xlsx", *ref)
+    for workers in ("1", "2"):
+        w = best(RUNS, [PY, "-m", "cellfuncs.cli", "cases", str(DEMO), path, "-o", os.path.join(d, "r.csv"),
+                        "--workers", workers])
+        line(f"cases of the current demo: 1,000 cases, {workers} worker(s)", *w, ref=ref[0])
+
+
 def big_book(path, n=40_000):
     """n built-in formula cells: ten per row (arithmetic, IF, ROUND, MAX, MIN, SQRT, SUM, a running sum)."""
     import openpyxl
@@ -170,8 +189,8 @@ def main(argv):
     d = tempfile.mkdtemp(prefix="bench-recalc-")
     try:
         for name in todo:
-            {"tender": bench_tender, "cases": bench_cases, "big": bench_big, "sum": bench_ranges,
-             "cols": bench_ranges}[name](d)
+            {"tender": bench_tender, "cases": bench_cases, "cases-demo": bench_cases_demo, "big": bench_big,
+             "sum": bench_ranges, "cols": bench_ranges}[name](d)
     finally:
         shutil.rmtree(d, ignore_errors=True)
 
