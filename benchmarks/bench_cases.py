@@ -23,7 +23,8 @@ def cases_csv(tmp_path_factory):
     path = tmp_path_factory.mktemp("cases") / "cases.csv"
     with open(path, "w", newline="") as fh:
         w = csv.writer(fh)
-        w.writerow(["t_ambient", "rh_ambient", "t_water_in", "t_water_out"])
+        # the input names of the 2026-12-01 copy (the demo's names were changed later)
+        w.writerow(["t_amb", "rh_amb", "t_return", "t_flow"])
         for _ in range(1000):
             w.writerow([round(rng.uniform(-5, 38), 1), round(rng.uniform(0.2, 0.95), 2),
                         rng.choice([55, 60, 65]), rng.choice([85, 90])])

@@ -275,6 +275,7 @@ class Model:
         self._snap = {}
         sets = sets or {}
         out_parts = {}
+        sheet_names = book.sheet_names  # a list built on each access: once, not once per cell
         for sheet, path in book.sheets:
             cells = book.cells.get(sheet)
             if cells is None:
@@ -312,7 +313,7 @@ class Model:
                     continue
                 tag = TAG + str(len(self.tags))
                 shared = cell.ftype == "shared"
-                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag, book.sheet_names)
+                rw = rewrite(cell.formula or "", catalogue_names, None if shared else tag, sheet_names)
                 if not shared:
                     self.tags[tag] = key
                 self.functions |= rw.functions
@@ -517,37 +518,80 @@ class Model:
     def messages_by_cell(self) -> dict:
         return {self.tags[t]: m for t, m in self.messages.items() if t in self.tags}
 
-    def dependents(self, cells: list) -> set:
-        """Every cell that depends (directly or not) on ``cells`` [(sheet, row, col)].
-
-        None when that is not known for sure (references built at run time by INDIRECT or
-        OFFSET, or a trace that stopped at its budget): callers then treat every cell as dependent.
+    def _trace(self, cells: list, direction: str, range_budget: int = 256, strict: bool = False):
+        """Every cell reached from ``cells`` [(sheet, row, col)] in ``direction`` ("Dependents" or
+        "Precedents"), as a set; None when that is not known for sure: references built at run
+        time (INDIRECT, OFFSET), a trace that stopped at its budget (``range_budget`` = cells of a
+        range followed), and with ``strict`` a node that is not one cell.
         """
         if self.functions & {"INDIRECT", "OFFSET"}:
-            return None  # references built at run time are not traced: every cell counts as dependent
+            return None  # references built at run time are not traced
         roots = [f"'{s}'!{col_letters(c)}{r}" if not s.isalnum() else f"{s}!{col_letters(c)}{r}"
                  for s, r, c in cells]
-        out = set()
         try:
-            t = self.wb.trace(roots, direction=fz().TraceDirection.Dependents, max_depth=10_000,
-                              max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000)
-        except Exception:  # noqa: BLE001 - unknown: every cell counts as dependent
+            t = self.wb.trace(roots, direction=getattr(fz().TraceDirection, direction), max_depth=10_000,
+                              max_nodes=1_000_000, max_links=4_000_000, max_work=50_000_000,
+                              range_member_budget=range_budget)
+        except Exception:  # noqa: BLE001 - unknown
             return None
         try:
             if t.truncation.incomplete:
-                return None  # the trace stopped at its budget: every cell counts as dependent
+                return None  # the trace stopped at its budget
         except AttributeError:
             return None
         from .book import parse_ref
 
+        out = set()
         for addr in t.nodes.keys():
             sheet, _, ref = addr.rpartition("!")
             sheet = sheet[1:-1].replace("''", "'") if sheet.startswith("'") else sheet
             pos = parse_ref(ref)
             if pos:
                 out.add((sheet, pos[0], pos[1]))
+            elif strict:
+                return None
         return out
 
+    def dependents(self, cells: list) -> set:
+        """Every cell that depends (directly or not) on ``cells`` [(sheet, row, col)].
+
+        None when that is not known for sure (references built at run time by INDIRECT or
+        OFFSET, or a trace that stopped at its budget): callers then treat every cell as dependent.
+        """
+        return self._trace(cells, "Dependents")
+
+    def keep_only(self, cells: list) -> int | None:
+        """Empty, in the engine, every formula cell that ``cells`` do not depend on.
+
+        For ``cases``: only the outputs are read, and the engine's partial evaluation may
+        evaluate more than the cells asked for (in the tender demo it evaluated every dirty
+        formula, a whole sheet no output reads included).  Nothing is emptied when the precedents are not
+        known for sure (see :meth:`_trace`) or the workbook has what-if data tables (computed
+        around the engine).  A cell of a legacy array range brings its anchor's formula along.
+        Returns the number of formula cells emptied, None when nothing was (every formula
+        stays; evaluate the cells asked for, not everything).
+        """
+        if self.data_tables:
+            return None
+        need = set(cells)
+        roots = list(cells)
+        while roots:
+            found = self._trace(roots, "Precedents", range_budget=1_000_000, strict=True)
+            if found is None:
+                return None
+            found |= set(roots)
+            need |= found
+            roots = []
+            for s, r, c in found:
+                anchor = self.arrays.get((s, r, c))
+                if anchor and (s, *anchor) not in need:
+                    need.add((s, *anchor))
+                    roots.append((s, *anchor))
+        drop = [k for k in self.formula_cells if k not in need and k not in self.arrays]
+        for s, r, c in drop:
+            self.wb.set_value(s, r, c, None)
+        self._snap = {}
+        return len(drop)
 
 
 def _names_for_engine(xml: str, catalogue_names, sheets) -> bytes:
