@@ -74,7 +74,9 @@ def _check_glycol(glycol_fraction: float, glycol: str) -> tuple:
 
 @lru_cache(maxsize=64)
 def _glycol_state(fluid: str, x: float):
-    import CoolProp.CoolProp as CP
+    from cellfuncs.props.coolprop_core import core
+
+    CP = core()
 
     st = CP.AbstractState("INCOMP", fluid)
     st.set_mass_fractions([x])
@@ -83,7 +85,9 @@ def _glycol_state(fluid: str, x: float):
 
 @lru_cache(maxsize=64)
 def _t_freeze(fluid: str, x: float) -> float:
-    import CoolProp.CoolProp as CP
+    from cellfuncs.props.coolprop_core import core
+
+    CP = core()
 
     st, _ = _glycol_state(fluid, x)
     return st.keyed_output(CP.iT_freeze) - _T0
