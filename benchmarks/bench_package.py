@@ -24,7 +24,7 @@ import pytest
 
 from test_xlsx_package import bomb_book  # benchmarks/conftest.py puts tests/ on the path
 
-from cellfuncs.xlsx import BookError, Package
+from cellfuncs.headless.package import BookError, Package
 
 
 @pytest.fixture(scope="module")
@@ -135,7 +135,7 @@ def test_edit_private_copy(benchmark, big):
 
 def test_edit_set_cached(benchmark, big):
     benchmark.group = EDITS
-    from cellfuncs.xlsx import col_letters
+    from cellfuncs.headless.package import col_letters
 
     values = {("S", f"{col_letters(c)}{r}"): r * c + 1.0 for r in range(1, 10001) for c in range(2, 6)}
     benchmark.pedantic(_cached, setup=lambda: ((Package(big), values), {}), rounds=3, iterations=1)

@@ -59,13 +59,13 @@ def _quote_sheet(sheet: str) -> str:
 
 
 def book_info(path: str) -> BookInfo:
-    """Read ``path`` (.xlsx/.xlsm); raise :class:`cellfuncs.xlsx.BookError` if it is unusable."""
+    """Read ``path`` (.xlsx/.xlsm); raise :class:`cellfuncs.headless.package.BookError` if it is unusable."""
     import zipfile
 
     import openpyxl
     from openpyxl.utils.cell import range_boundaries
 
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.headless.package import BookError
 
     if not os.path.isfile(path):
         raise BookError(f"{path}: no such file")

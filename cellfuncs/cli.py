@@ -43,7 +43,7 @@ def check_output_path(out: str, *inputs: str):
 
 
 def _json_value(v):
-    from cellfuncs.xlsx import ErrorText
+    from cellfuncs.headless.package import ErrorText
 
     if isinstance(v, ErrorText):
         return str(v)
@@ -53,7 +53,7 @@ def _json_value(v):
 def cmd_recalc(ns) -> int:
     """Exit 0: every formula computed; 3: computed with gaps (cells kept or not computed); 2: unusable."""
     from cellfuncs import headless
-    from cellfuncs.xlsx import BookError, check_output_kind
+    from cellfuncs.headless.package import BookError, check_output_kind
 
     if not ns.book.lower().endswith((".xlsx", ".xlsm")) and os.path.isfile(ns.book):
         raise UsageError(f"{ns.book}: not an .xlsx workbook")
@@ -171,7 +171,7 @@ def cmd_demo(ns) -> int:
 
 def cmd_inputs(ns) -> int:
     from cellfuncs import bookinfo
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.headless.package import BookError
 
     _printable_output()
     try:

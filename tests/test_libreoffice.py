@@ -217,7 +217,7 @@ def _headless(path: Path) -> dict:
 
 def _same(lo: dict, want) -> str | None:
     """None when Calc's cell equals ``want`` (a headless/adapt value), else why not."""
-    from cellfuncs.xlsx import ErrorText
+    from cellfuncs.headless.package import ErrorText
 
     if isinstance(want, ErrorText) or (isinstance(want, str) and want in CALC_ERRORS.values()):
         # what Calc shows in the cell (its own text for the error number)

@@ -27,10 +27,10 @@ from openpyxl.styles import Font
 from openpyxl.workbook.defined_name import DefinedName
 from openpyxl.worksheet.datavalidation import DataValidation
 
-from cellfuncs import xlsx_zip
+from cellfuncs.headless import package_zip as xlsx_zip
 from cellfuncs.cli import main
-from cellfuncs.xlsx import BookError, Package, check_output_kind
-from cellfuncs.xlsx_formula import shift_formula
+from cellfuncs.headless.package import BookError, Package, check_output_kind
+from cellfuncs.headless.package_formula import shift_formula
 
 MAIN_NS = "http://schemas.openxmlformats.org/spreadsheetml/2006/main"
 SHEET = "xl/worksheets/sheet1.xml"
@@ -317,7 +317,7 @@ def test_ratio_rule_only_above_the_floor(tmp_path, plain, monkeypatch):
 def test_refusal_keeps_memory_small(tmp_path, plain):
     """The 300 MiB part is refused without inflating it: peak memory of the process stays small."""
     src = bomb_book(tmp_path, plain, 300, declared=1000)
-    code = ("from cellfuncs.xlsx import Package, BookError\n"
+    code = ("from cellfuncs.headless.package import Package, BookError\n"
             f"try:\n    Package({str(src)!r})\nexcept BookError as e:\n    print(e)\n"
             "print([ln.split()[1] for ln in open('/proc/self/status') if ln.startswith('VmHWM')][0])")
     p = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120)
@@ -437,7 +437,7 @@ def test_shared_formulas_show_numbers_in_libreoffice(tmp_path, capsys):
        abs_c=st.booleans(), abs_r=st.booleans())
 def test_shift_round_trip(col, row, d_row, d_col, abs_c, abs_r):
     """Moving by (dr, dc) and back restores the formula; absolute parts never move."""
-    from cellfuncs.xlsx import col_letters
+    from cellfuncs.headless.package import col_letters
 
     ref = f"{'$' if abs_c else ''}{col_letters(col)}{'$' if abs_r else ''}{row}"
     text = f'SUM({ref}:{ref})+LOG10({ref})*"A1"&Data!{ref}'
@@ -574,7 +574,7 @@ def round_dir(tmp_path_factory):
        shape=st.sampled_from(sorted(ROUND_SHAPES)))
 def test_set_values_round_trip(round_dir, initial, edits, shape):
     """Whatever the shape, what is written is what a reader finds, and nothing else moves."""
-    from cellfuncs.xlsx import col_letters
+    from cellfuncs.headless.package import col_letters
 
     wb = openpyxl.Workbook()
     ws = wb.active

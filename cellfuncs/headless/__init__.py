@@ -13,13 +13,13 @@ Modules, one job each:
 * :mod:`~cellfuncs.headless.cases` — ``cellfuncs cases``;
 * :mod:`~cellfuncs.headless.files` — output checks shared by both commands.
 
-Reading and writing the package itself is :mod:`cellfuncs.xlsx`.  Importing this
+Reading and writing the package itself is :mod:`cellfuncs.headless.package`.  Importing this
 package imports neither the engine nor any physics.
 """
 
 from __future__ import annotations
 
-from cellfuncs.xlsx import BookError
+from cellfuncs.headless.package import BookError
 
 from .recalculation import Recalc, key_text, recalc, write_with_cached_values
 

@@ -2,7 +2,7 @@
 
 The package's parts are read with an XML parser, so namespace prefixes, either
 quote style and rows or cells without an ``r`` attribute are all understood.
-Nothing here writes: the output is written by :mod:`cellfuncs.xlsx` and the
+Nothing here writes: the output is written by :mod:`cellfuncs.headless.package` and the
 engine's private copy by :mod:`cellfuncs.headless.engine`.
 """
 
@@ -13,7 +13,7 @@ import re
 import xml.etree.ElementTree as ET
 from dataclasses import dataclass, field
 
-from cellfuncs.xlsx import BookError, ErrorText, col_letters
+from cellfuncs.headless.package import BookError, ErrorText, col_letters
 
 __all__ = ["Cell", "BookData", "read_book", "ref_text"]
 
@@ -59,7 +59,7 @@ class Cell:
     ``t`` attribute of the formula (``None``, ``"array"``, ``"shared"``,
     ``"dataTable"``); ``fattrs`` holds its other attributes (``ref``, ``si``,
     ``r1`` ...). ``value`` is the stored value (the cached one for a formula):
-    float, str, bool, :class:`~cellfuncs.xlsx.ErrorText` or None.
+    float, str, bool, :class:`~cellfuncs.headless.package.ErrorText` or None.
     """
 
     formula: str | None

@@ -21,7 +21,7 @@ import io
 import os
 import sys
 
-from cellfuncs.xlsx import BookError, ErrorText
+from cellfuncs.headless.package import BookError, ErrorText
 
 from .files import check_output_path, write_text_atomic
 

@@ -2,7 +2,7 @@
 
 The rest of :mod:`cellfuncs.headless` knows nothing of the engine's types: it
 hands this module the parts of a package and gets plain values back
-(float, str, bool, None, :class:`~cellfuncs.xlsx.ErrorText`).
+(float, str, bool, None, :class:`~cellfuncs.headless.package.ErrorText`).
 
 Catalogue functions are registered on each engine workbook with
 ``register_function(NAME, callback)``; the callback receives the evaluated
@@ -45,7 +45,7 @@ import math
 import zipfile
 
 from cellfuncs.errors import CellInputError
-from cellfuncs.xlsx import ErrorText, col_letters
+from cellfuncs.headless.package import ErrorText, col_letters
 
 from .formula_text import TAG, rewrite
 

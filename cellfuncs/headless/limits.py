@@ -1,6 +1,6 @@
 """Budgets of the headless engine: cells present, cells referenced, memory.
 
-The package reader refuses parts that inflate too far (see :mod:`cellfuncs.xlsx`);
+The package reader refuses parts that inflate too far (see :mod:`cellfuncs.headless.package`);
 these budgets bound what the engine is asked to do with what is inside:
 
 * at most :data:`MAX_PRESENT_CELLS` cells holding a value or formula in all sheets;
@@ -16,7 +16,7 @@ from __future__ import annotations
 
 import contextlib
 
-from cellfuncs.xlsx import BookError
+from cellfuncs.headless.package import BookError
 
 __all__ = ["MAX_PRESENT_CELLS", "MAX_REFERENCED_CELLS", "check_present", "check_referenced", "guard"]
 

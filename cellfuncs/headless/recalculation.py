@@ -7,7 +7,7 @@
   depends on was changed with ``--set``: then its old value would be stale and
   it becomes an error (listed too);
 * the engine works on a private copy; the output is the input package with
-  only the cached values of computed cells changed (:mod:`cellfuncs.xlsx`).
+  only the cached values of computed cells changed (:mod:`cellfuncs.headless.package`).
 """
 
 from __future__ import annotations
@@ -16,7 +16,7 @@ import math
 import re
 from dataclasses import dataclass, field
 
-from cellfuncs.xlsx import BookError, ErrorText, Package, col_letters
+from cellfuncs.headless.package import BookError, ErrorText, Package, col_letters
 
 from . import limits
 from .book import parse_ref, read_book
@@ -30,7 +30,7 @@ class Recalc:
     """Result of a recalculation.
 
     values : {(sheet, "A1"): value} for every formula cell (array ranges cell by cell);
-        a value is a float, str, bool, or an :class:`~cellfuncs.xlsx.ErrorText`.
+        a value is a float, str, bool, or an :class:`~cellfuncs.headless.package.ErrorText`.
         Cells not computed hold the value the input file held.
     messages : {(sheet, "A1"): one-line message} for the cells that ended in an error.
     gaps : {(sheet, "A1"): reason} for the cells the engine could not compute.
@@ -126,7 +126,7 @@ def resolve_target(target: str, book):
         found = book.sheet(sheet)
         if found is None:
             raise BookError(f"{target}: the workbook has no sheet {sheet!r}")
-        from cellfuncs.xlsx import split_ref
+        from cellfuncs.headless.package import split_ref
 
         r, c = split_ref(ref)  # a reference outside a worksheet is a BookError with its reason
         return found, r, c

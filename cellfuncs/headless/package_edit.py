@@ -1,22 +1,22 @@
-"""The edits of a worksheet part, each one pass of :func:`cellfuncs.xlsx_sheet.walk`.
+"""The edits of a worksheet part, each one pass of :func:`cellfuncs.headless.package_sheet.walk`.
 
 Every function takes the part's bytes and returns new bytes in which only the spans it had to
-change differ; see :mod:`cellfuncs.xlsx_sheet` for how cells are located.
+change differ; see :mod:`cellfuncs.headless.package_sheet` for how cells are located.
 """
 
 from __future__ import annotations
 
-from cellfuncs.xlsx_formula import shift_formula
-from cellfuncs.xlsx_sheet import _Visitor, _esc, _num_text, apply_edits, col_text, start_tag, walk
-from cellfuncs.xlsx_sheet import _GT, _parse, _parser, _ref_col, _split, tag_end
-from cellfuncs.xlsx_sheet import open_end as opened
+from cellfuncs.headless.package_formula import shift_formula
+from cellfuncs.headless.package_sheet import _Visitor, _esc, _num_text, apply_edits, col_text, start_tag, walk
+from cellfuncs.headless.package_sheet import _GT, _parse, _parser, _ref_col, _split, tag_end
+from cellfuncs.headless.package_sheet import open_end as opened
 
 __all__ = ["extent", "map_formulas", "drop_empty", "edit_cells", "expand_shared", "to_values",
            "read_cells"]
 
 
 def _err(msg):
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.headless.package import BookError
 
     return BookError(msg)
 

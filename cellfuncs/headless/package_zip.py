@@ -1,6 +1,6 @@
 """Reading the zip container of a workbook with bounded resources.
 
-Every refusal is a :class:`~cellfuncs.xlsx.BookError` with one line (the CLI turns it into exit 2).
+Every refusal is a :class:`~cellfuncs.headless.package.BookError` with one line (the CLI turns it into exit 2).
 
 * A part is refused before it is decompressed when the zip directory declares more than
   :data:`MAX_PART_BYTES` uncompressed, or more than :data:`RATIO_FLOOR_BYTES` at a compression
@@ -45,7 +45,7 @@ _XML_EXT = (".xml", ".rels", ".vml", ".svg")
 
 
 def _err(msg: str):
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.headless.package import BookError
 
     return BookError(msg)
 

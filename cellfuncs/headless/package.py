@@ -6,10 +6,10 @@ cells' cached values.  Loading and saving through a workbook library would drop 
 so this module edits the sheet XML of the package directly and writes every other part back byte
 for byte.
 
-* Reading is bounded (:mod:`cellfuncs.xlsx_zip`): oversized or over-compressed parts, unsafe member
+* Reading is bounded (:mod:`cellfuncs.headless.package_zip`): oversized or over-compressed parts, unsafe member
   names, a DOCTYPE, a password-protected (compound) file are refused with one line.
-* ``sheetData`` is read with an XML parser and edited in place (:mod:`cellfuncs.xlsx_sheet`,
-  :mod:`cellfuncs.xlsx_edit`): namespace prefixes, cells and rows without ``r``, either quote style.
+* ``sheetData`` is read with an XML parser and edited in place (:mod:`cellfuncs.headless.package_sheet`,
+  :mod:`cellfuncs.headless.package_edit`): namespace prefixes, cells and rows without ``r``, either quote style.
 * The saved package writes shared formulas out in full in each cell (readers that re-parse them
   on load keep the cached values), and :meth:`Package.values_only` gives the "values only" copy.
 * ``fullCalcOnLoad`` is switched off so that a reader without the add-in keeps the numbers.
@@ -29,8 +29,9 @@ import tempfile
 import zipfile
 from urllib.parse import unquote
 
-from cellfuncs import xlsx_edit, xlsx_zip
-from cellfuncs.xlsx_sheet import find_elements, open_end, parse_only, start_tag
+from cellfuncs.headless import package_edit as xlsx_edit
+from cellfuncs.headless import package_zip as xlsx_zip
+from cellfuncs.headless.package_sheet import find_elements, open_end, parse_only, start_tag
 
 __all__ = ["BookError", "ErrorText", "Package", "check_output_kind", "col_index", "col_letters", "split_ref"]
 
@@ -122,7 +123,7 @@ class Package:
     Raises
     ------
     BookError
-        Missing file, not a zip, corrupt zip, a refused shape (see :mod:`cellfuncs.xlsx_zip`),
+        Missing file, not a zip, corrupt zip, a refused shape (see :mod:`cellfuncs.headless.package_zip`),
         not a spreadsheet package.
     """
 
@@ -292,7 +293,7 @@ class Package:
         edits = [(el.start, open_end(data, el), start_tag(el, drop=("fullCalcOnLoad",), empty=el.empty))
                  for el in find_elements(data, {"calcPr"}, wb) if "fullCalcOnLoad" in el.attrs]
         if edits:
-            from cellfuncs.xlsx_sheet import apply_edits
+            from cellfuncs.headless.package_sheet import apply_edits
 
             self.parts[wb] = apply_edits(data, edits)
 
@@ -336,7 +337,7 @@ class Package:
     # -- output ----------------------------------------------------------------------
     def _values_only_parts(self) -> tuple:
         """(parts, names to leave out) of the values-only copy."""
-        from cellfuncs.xlsx_sheet import apply_edits
+        from cellfuncs.headless.package_sheet import apply_edits
 
         parts = dict(self.parts)
         for path in self._worksheets().values():

@@ -35,7 +35,7 @@ def escape(data: str, entities: dict | None = None) -> str:
 
 
 def _err(msg):
-    from cellfuncs.xlsx import BookError
+    from cellfuncs.headless.package import BookError
 
     return BookError(msg)
 
