@@ -86,7 +86,11 @@ def _example_line(e):
         res_text = _fmt_value(res)
     if e.name == "CELLFUNCS_VERSION":
         res_text = "the installed version"
-    call = ", ".join(_fmt_value(v) for v in e.example)
+    # an argument left out (None in the example) is written as Excel takes it: nothing between commas
+    args = list(e.example)
+    while args and args[-1] is None:
+        args.pop()
+    call = ",".join("" if v is None else " " + _fmt_value(v) for v in args).lstrip()
     return f"Example: `={e.name}({call})` → {res_text}"
 
 

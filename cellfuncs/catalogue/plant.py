@@ -120,14 +120,15 @@ ENTRIES = [
         category=CAT_PLANT,
         description="First-law check of a CHP plant on the net calorific value: OK when -0.5 % to 5 % "
                     "of the fuel is unaccounted, CHECK above 5 %, FIRST-LAW VIOLATION when outputs "
-                    "exceed the fuel by over 0.5 %. Radiation + generator loss: typ. 3-7 %.",
+                    "exceed the fuel by over 0.5 %. Radiation + generator loss: typ. 2-5 % of the fuel.",
         args=(Arg("fuel_power_kw", "Fuel power input on the net calorific value", "kW"),
               Arg("electrical_kw", "Electrical output", "kW"),
               Arg("heat_flows_kw", "Every heat flow leaving the plant, recovered and dumped, any "
                   "range [kW]; blanks skipped", kind="numbers"),
               Arg("exhaust_loss_kw", "Exhaust loss above 25 °C, water as vapour (EXH_LOSS)", "kW"),
               Arg("other_losses_kw", "Losses counted apart, e.g. radiation (typically 1-3 % of the "
-                  "fuel) and generator loss (2-4 %, common practice)", "kW", default=0.0)),
+                  "fuel) and generator loss (2.5-4 % of the electrical output, about 1-1.7 % of "
+                  "the fuel; common practice)", "kW", default=0.0)),
         returns="one line of text, at most 255 characters [text]",
         example=(3650.0, 1560.0, [[560.0, 190.0, 300.0, 120.0]], 820.0, 100.0),
     ),

@@ -391,7 +391,7 @@ EXHAUST = [
     CellFunction(
         name="EXH_O2_CORRECT",
         target=_REC + "exhaust:o2_correct",
-        category=CAT_HR,
+        category="cellfuncs · emissions",
         description="An emission concentration referred to a reference O2 content: c·(20.9 − "
                     "O2_ref)/(20.9 − O2_meas), O2 in vol-% dry (common practice in emission permits; "
                     "some use 21: check the permit). From EXH_COMPOSITION(...,\"o2\",\"dry\"): "

@@ -325,10 +325,18 @@ def spread(comp, result: str = "spread"):
         parts = [f"{m} {v:.1f}" for m, v in valid] + [f"{m} refused" for m, _ in refused]
         return "; ".join(parts)
     if len(valid) < (1 if word in ("lowest", "highest") else 2):
-        why = "; ".join(f"{m}: {r.split(': ', 1)[-1]}" for m, r in refused)
-        raise CellInputError(f"components: {len(valid)} methane-number method(s) apply to this "
-                             f"gas, a {word} needs {2 if word == 'spread' else 1} "
-                             f"this gas ({why})")
+        need = 2 if word == "spread" else 1
+        head = (f"components: {len(valid)} methane-number method(s) apply to this gas, a {word} "
+                f"needs {need}; refused: ")
+        # one line within Excel's 255 characters: each refused method by name, its reason cut short
+        suffix = ' — see the "methods" result'
+        room = max(0, 250 - len(head) - len(suffix))
+        names = ", ".join(m for m, _ in refused)
+        first = refused[0][1].split(": ")[-1] if refused else ""
+        tail = names + (f" (first: {first})" if first else "")
+        if len(tail) > room:
+            tail = tail[:max(0, room - 1)].rstrip() + "…"
+        raise CellInputError(head + tail + suffix)
     vals = [v for _, v in valid]
     if word == "lowest":
         return min(vals)

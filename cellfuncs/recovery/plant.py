@@ -318,6 +318,11 @@ def chp_balance(fuel_power_kw: float, electrical_kw: float, heat_kw, output: str
 BALANCE_OK_LOW, BALANCE_OK_HIGH = -0.005, 0.05
 
 
+#: the largest power the balance check takes [kW] (10 GW: far above any engine plant; beyond it a
+#: share of the fuel is no longer a number worth printing)
+_PLANT_MAX_KW = 1e7
+
+
 def chp_balance_check(fuel_power_kw: float, electrical_kw: float, heat_flows_kw, exhaust_loss_kw: float,
                       other_losses_kw: float = 0.0) -> str:
     """First-law check of a CHP plant's balance on the net calorific value (one line of text).
@@ -349,23 +354,27 @@ def chp_balance_check(fuel_power_kw: float, electrical_kw: float, heat_flows_kw,
     -----
     unaccounted = fuel − electrical − Σ heat flows − exhaust loss − other
     losses.  Radiation from the engine and the generator's losses are what
-    normally remains when they are not entered: typically about 1-3 % and
-    2-4 % of the fuel on engine sets of this size (common practice).
+    normally remains when they are not entered: radiation typically about 1-3 % of
+    the fuel, the generator's loss 2.5-4 % of the electrical output (about 1-1.7 %
+    of the fuel) on engine sets of this size (common practice).
 
     References
     ----------
     .. [1] ISO 3046-1:2002, engine heat balance at standard reference conditions
        (from memory); first law of thermodynamics (steady flow).
     """
-    fuel = check_range("fuel_power_kw", fuel_power_kw, 0.0, None, "kW", lo_open=True)
-    el = check_range("electrical_kw", electrical_kw, 0.0, None, "kW")
+    fuel = check_range("fuel_power_kw", fuel_power_kw, 1e-3, _PLANT_MAX_KW, "kW")
+    el = check_range("electrical_kw", electrical_kw, 0.0, _PLANT_MAX_KW, "kW")
     heats = _heat_list("heat_flows_kw", heat_flows_kw)
     for i, q in enumerate(heats, start=1):
         if q < 0:
             raise CellInputError(f"heat_flows_kw: value {i} is {fmt(q)} kW; a heat flow leaving the plant "
                                  "cannot be negative")
-    exh = check_range("exhaust_loss_kw", exhaust_loss_kw, 0.0, None, "kW")
-    other = check_range("other_losses_kw", other_losses_kw, 0.0, None, "kW")
+        if q > _PLANT_MAX_KW:
+            raise CellInputError(f"heat_flows_kw: value {i} is {fmt(q)} kW, above the "
+                                 f"{_PLANT_MAX_KW:.0e} kW this check takes")
+    exh = check_range("exhaust_loss_kw", exhaust_loss_kw, 0.0, _PLANT_MAX_KW, "kW")
+    other = check_range("other_losses_kw", other_losses_kw, 0.0, _PLANT_MAX_KW, "kW")
     out = math.fsum([el, exh, other] + heats)
     rest = fuel - out
     share = rest / fuel
