@@ -113,9 +113,9 @@ def _inputs(b: DemoBook) -> None:
     b.input("site_altitude_m", "Site altitude", 200, "m", "sets the ambient pressure below")
     b.input("p_ambient_offset_bar", "Design-day weather correction of the ambient pressure", 0.0, "bar",
             "added to the standard atmosphere; 0 = none")
-    _input_formula(b, "p_ambient_bar", "Ambient pressure: standard atmosphere (ISO 2533) at the site altitude, "
-                   "+ the correction", "=SITE_PRESSURE(site_altitude_m)+p_ambient_offset_bar", "bar(a)",
-                   "computed, not an input: every sheet uses this one pressure", "0.0000")
+    _input_formula(b, "p_ambient_bar", "Ambient pressure: standard atmosphere at the altitude",
+                   "=SITE_PRESSURE(site_altitude_m)+p_ambient_offset_bar", "bar(a)",
+                   "computed (ISO 2533 + the correction), used on every sheet", "0.0000")
     b.input_heading("Client's hot water and design choices")
     b.input("t_water_in", "Hot-water return (client's water entering the plant)", 60, "°C")
     b.input("t_water_out", "Hot-water flow wanted", 90, "°C")
@@ -447,7 +447,7 @@ def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
     q = f"$B${rows['duty']}:$C${rows['duty']}"
     twice = f"$B${src}=$C${src}"
     s.calc("Heat to the client", f"=IF({twice},NA(),SUM({q}))", "kW", name=f"{prefix}_heat", fmt="0.0",
-           note="#N/A: the same heat source twice")
+           note="#N/A when the order names one heat source twice")
     s.calc("Dump heat of the HT circuit", f"=SUM($B${rows['dump']}:$C${rows['dump']})", "kW",
            name=f"{prefix}_dump", fmt="0.0")
     s.calc("Water to the client", f"=$C${rows['t_out']}", "°C", name=f"{prefix}_t_flow", fmt="0.0")
