@@ -41,7 +41,9 @@ def test_declared_figures_match_the_physics():
 
     names = [[g] for g, _ in tender_chp.GAS]
     amounts = [[a] for _, a in tender_chp.GAS]
-    amb = (30.0, 0.55, 0.99)
+    # the workbook's design day: 30 °C, 55 % RH, and the ISO 2533 standard atmosphere at its 200 m altitude
+    # (98 945 Pa, the standard's table, from memory; checked by hand in tests/test_demo_site.py)
+    amb = (30.0, 0.55, 0.98945)
     lam = D["air_ratio"]
     mix = X.CAC_MIXTURE_FLOW(D["fuel_power_kw"], lam, names, amounts, "net", *amb, "mixture")
     t_c = X.TURBO_T_OUT(amb[0], amb[2], D["p_boost_bar"], D["isentropic_efficiency"], lam, names, amounts,
@@ -102,3 +104,49 @@ def test_cases_over_the_demo_inputs():
     rows = [runner.run_case([30.0, 0.55, 60.0, 90.0]), runner.run_case([35.0, 0.6, 55.0, 85.0])]
     assert str(rows[0][0]).startswith("OK: ") and str(rows[1][0]).startswith("OK: ")
     assert rows[0][1] == pytest.approx(_named("out_heat_to_client"), rel=1e-9)
+
+
+def _runner(inputs, outputs):
+    from cellfuncs.headless.cases import CaseRunner
+
+    return CaseRunner(str(BOOK), inputs, outputs)
+
+
+def test_order_inputs_take_only_the_two_drop_down_words():
+    """The project's rule "never a silent wrong number": an order word other than the drop-down's two is an
+    error naming it in the chain's cells, and the same source twice is flagged and gives no heat figure."""
+    from cellfuncs.headless.package import ErrorText
+
+    runner = _runner(["order_1", "order_2"], ["rated_a_check", "out_heat_to_client", "out_balance_check",
+                                              "rated_a_t_flow"])
+    ok = runner.run_case(list(tender_chp.ORDER))
+    assert ok[0] == "OK" and ok[1] == pytest.approx(_named("out_heat_to_client"), rel=1e-9)
+    for bad in (42.0, "engine", "Exhaust gas"):
+        out = runner.run_case([bad, tender_chp.ORDER[1]])
+        assert all(isinstance(v, ErrorText) for v in out), (bad, out)
+        assert "not a heat source" in out[3].message, out[3].message
+    for src in tender_chp.SOURCES:
+        out = runner.run_case([src, src])
+        assert out[0] == f"CHECK: the same heat source twice ({src})"
+        assert isinstance(out[1], ErrorText) and isinstance(out[2], ErrorText), out
+
+
+def test_ambient_pressure_follows_the_site_altitude():
+    """p_ambient_bar is the ISO 2533 standard atmosphere at the site altitude plus the design-day offset
+    (ISO 2533:1975 troposphere formula evaluated by hand, as in tests/test_demo_site.py), and the charge-air
+    physics sees it: the compressor outlet is hotter at altitude (a higher pressure ratio to the same boost,
+    first law for an isentropic-efficiency compressor, common practice)."""
+    runner = _runner(["site_altitude_m", "p_ambient_offset_bar"],
+                     ["p_ambient_bar", "out_site_pressure", "t_compressor_out"])
+
+    def iso2533(h):
+        return 1.01325 * (1 - 0.0065 * h / 288.15) ** (9.80665 * 0.0289644 / (8.31432 * 0.0065))
+
+    low = runner.run_case([200.0, 0.0])
+    high = runner.run_case([1500.0, 0.0])
+    offset = runner.run_case([200.0, 0.012])
+    assert low[0] == pytest.approx(iso2533(200.0), rel=1e-6) and low[0] == low[1]
+    assert high[0] == pytest.approx(iso2533(1500.0), rel=1e-6)
+    assert high[0] == pytest.approx(0.8456, abs=1e-4)  # ISO 2533 table at 1500 m: 84 560 Pa (from memory)
+    assert offset[0] == pytest.approx(iso2533(200.0) + 0.012, rel=1e-6)
+    assert high[2] > low[2] > offset[2]

@@ -52,7 +52,7 @@ def build(path: str) -> None:
     b.input("fuel_ref_conditions", "Reference for the fuel flow", "25/0", "°C/°C",
             "datasheets state net fuel power, often at 25/0",
             options=REFS)
-    b.input("fuel_kw", "Fuel power of the engine (datasheet)", 2900, "kW",
+    b.input("fuel_power_kw", "Fuel power of the engine (datasheet)", 2900, "kW",
             "from the engine's declared datasheet (net)")
     b.input("coverage", "Coverage factor of the uncertainty", 2, "-", "2 ≈ 95 %")
     header = ("component",) + GASES + ("u(grid gas)",)
@@ -61,8 +61,8 @@ def build(path: str) -> None:
                   note="invented analyses; u = standard uncertainty of each amount")
 
     c = b.sheet("Properties", "Gas properties (ISO 6976:2016 on the chosen reference conditions)")
-    c.calc("Metering temperature t2 of the reference conditions",
-           '=VALUE(MID(ref_conditions,FIND("/",ref_conditions)+1,3))', "°C", name="t_metering", fmt="0")
+    c.calc("Reference conditions combustion/metering (Inputs)", "=ref_conditions", "°C/°C",
+           note="Z, density and relative density use the metering temperature t2")
     c.row += 1
     c.table_row("", list(GASES), "")
     for j in range(4):
@@ -77,7 +77,7 @@ def build(path: str) -> None:
 
     row("Sum of the analysis", "=SUM({g})", "mol-%", "0.00")
     row("Molar mass", "=GAS_MOLAR_MASS(gas_names,{g})", "kg/kmol", "0.000")
-    row("Compression factor Z at metering", "=GAS_Z(gas_names,{g},t_metering)",
+    row("Compression factor Z at metering", "=GAS_Z(gas_names,{g},ref_conditions)",
         "-", "0.00000")
     row("Calorific value (kind chosen), volume", "=GAS_CV(gas_names,{g},kind,\"volume\",ref_conditions)", _unit("MJ/m³"),
         "0.000", "out_cv")
@@ -92,18 +92,20 @@ def build(path: str) -> None:
     row("Wobbe index (gross)", "=GAS_WOBBE(gas_names,{g},\"gross\",ref_conditions)", _unit("MJ/m³", "gross"),
         "0.000", "out_wobbe")
     row("Wobbe index (net)", "=GAS_WOBBE(gas_names,{g},\"net\",ref_conditions)", _unit("MJ/m³", "net"))
-    row("Density at metering", "=GAS_DENSITY(gas_names,{g},t_metering)", "kg/m³",
+    row("Density at metering", "=GAS_DENSITY(gas_names,{g},ref_conditions)", "kg/m³",
         "0.0000")
-    row("Relative density", "=GAS_REL_DENSITY(gas_names,{g},t_metering)", "-",
+    row("Relative density", "=GAS_REL_DENSITY(gas_names,{g},ref_conditions)", "-",
         "0.0000")
     row("Methane number (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,{g})", "-", "0.0",
         "out_mn")
     row("Stoichiometric air, volume", "=GAS_AIR_REQUIREMENT(gas_names,{g},\"volume\")", "m³/m³")
     row("Stoichiometric air, mass", "=GAS_AIR_REQUIREMENT(gas_names,{g},\"mass\")", "kg/kg")
     row("CO2 factor (net, 25 °C)", "=GAS_CO2_FACTOR(gas_names,{g},\"net\",25)", "kg/MWh", "0.0")
-    row("Fuel flow for the engine's fuel power", "=GAS_FUEL_FLOW(gas_names,{g},fuel_kw,\"net\",fuel_ref_conditions)",
+    row("Fuel flow for the engine's fuel power",
+        "=GAS_FUEL_FLOW(gas_names,{g},fuel_power_kw,\"net\",fuel_ref_conditions)",
         _unit("m³/h", "net", "fuel_ref_conditions"), "0.0", "out_fuel_flow")
-    row("Check: fuel power of that flow", "=GAS_FUEL_POWER(gas_names,{g},out_fuel_flow_{i},\"net\",fuel_ref_conditions)",
+    row("Check: fuel power of that flow",
+        "=GAS_FUEL_POWER(gas_names,{g},out_fuel_flow_{i},\"net\",fuel_ref_conditions)",
         "kW", "0.0")
     c.heading("Uncertainty of the grid gas' calorific value (ISO 6976:2016 Annex B)")
     c.calc("Expanded uncertainty of the chosen calorific value",

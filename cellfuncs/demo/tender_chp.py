@@ -55,8 +55,8 @@ DATASHEET = (
     ("t_mixture_ht", "Mixture after the HT stage", 90, "°C", ""),
     ("t_mixture", "Mixture after the LT stage (intake)", 50, "°C", ""),
     ("t_mixture_ref", "Knock reference: mixture temperature", 50, "°C", "rated knock-free point"),
-    ("p_boost_bar_ref", "Knock reference: boost pressure", 3.3, "bar(a)", ""),
-    ("mn_ref", "Knock reference: methane number", 80, "-", ""),
+    ("p_boost_ref_bar", "Knock reference: boost pressure", 3.3, "bar(a)", ""),
+    ("methane_number_ref", "Knock reference: methane number", 80, "-", ""),
     ("speed_rpm", "Engine speed", 1500, "rpm", ""),
     ("frequency_hz", "Grid frequency", 50, "Hz", ""),
     ("displacement_l", "Total displacement", 64, "l", "16 cylinders × 4.0 l"),
@@ -93,13 +93,29 @@ def datasheet_values() -> dict:
     return {n: v for n, _label, v, _u, _note in DATASHEET}
 
 
+def _input_formula(b: DemoBook, name, label, formula, unit, note, fmt) -> None:
+    """A computed row on Inputs (boxed, no input fill), named ``name``: not a cases column."""
+    r = b._in_row
+    b.inputs.cell(r, 1, label)
+    c = b.inputs.cell(r, 2, formula)
+    c.border = _BOX
+    c.number_format = fmt
+    b.inputs.cell(r, 3, unit)
+    b.inputs.cell(r, 4, note)
+    b.name(name, f"Inputs!$B${r}")
+    b._in_row += 1
+
+
 def _inputs(b: DemoBook) -> None:
     b.input_heading("Site (design day)")
     b.input("t_ambient", "Ambient air temperature (design day)", 30, "°C")
     b.input("rh_ambient", "Ambient relative humidity", 0.55, "-", "fraction 0–1")
-    b.input("p_ambient_bar", "Ambient pressure", 0.99, "bar(a)")
-    b.input("site_altitude_m", "Site altitude", 200, "m",
-            "its standard-atmosphere pressure (ISO 2533) is on the Site rating sheet")
+    b.input("site_altitude_m", "Site altitude", 200, "m", "sets the ambient pressure below")
+    b.input("p_ambient_offset_bar", "Design-day weather correction of the ambient pressure", 0.0, "bar",
+            "added to the standard atmosphere; 0 = none")
+    _input_formula(b, "p_ambient_bar", "Ambient pressure: standard atmosphere at the altitude",
+                   "=SITE_PRESSURE(site_altitude_m)+p_ambient_offset_bar", "bar(a)",
+                   "computed (ISO 2533 + the correction), used on every sheet", "0.0000")
     b.input_heading("Client's hot water and design choices")
     b.input("t_water_in", "Hot-water return (client's water entering the plant)", 60, "°C")
     b.input("t_water_out", "Hot-water flow wanted", 90, "°C")
@@ -111,7 +127,7 @@ def _inputs(b: DemoBook) -> None:
     b.input("ua_margin", "Surface margin of the HT plate exchanger", 0.10, "-", "fraction of the UA needed")
     b.input("u_plate_w_m2_k", "U of the HT plate exchanger", 3500, "W/(m²·K)")
     b.input("u_exhaust_w_m2_k", "U of the exhaust exchanger (gas side)", 60, "W/(m²·K)")
-    b.input("exh_arrangement", "Exhaust exchanger arrangement", "counter", "", "drop-down", options=ARRANGEMENTS)
+    b.input("exhaust_arrangement", "Exhaust exchanger arrangement", "counter", "", "drop-down", options=ARRANGEMENTS)
     b.input_heading("LT circuit and coolers (water-glycol)")
     b.input("lt_glycol_fraction", "Glycol mass fraction of the LT circuit", 0.35, "-",
             "ethylene glycol, frost protection of the dry cooler")
@@ -182,8 +198,8 @@ def _gas_and_air(b: DemoBook) -> None:
     g.calc("Condensation check", '=IF(t_mixture>t_dew_mixture,"OK: intake above the dew point",'
            '"CONDENSATE in the intake: separate and drain it")', "", name="dew_check")
     g.calc("Knock margin at the intake temperature", "=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,"
-           'mn_gas,t_mixture_ref,p_boost_bar_ref,mn_ref,compression_ratio,"K")', "K", name="out_knock_k",
-           result=True, fmt="0.0")
+           'mn_gas,t_mixture_ref,p_boost_ref_bar,methane_number_ref,compression_ratio,"K")', "K",
+           name="out_knock_k", result=True, fmt="0.0")
     g.heading("Methane number by method: the spread and the knock margin at its lowest")
     g.calc("Methane-number spread (highest − lowest method)",
            '=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,"spread")', "-", name="mn_spread", fmt="0.0")
@@ -193,15 +209,15 @@ def _gas_and_air(b: DemoBook) -> None:
            name="mn_methods")
     g.calc("Knock margin at the default MN (EN 16726 Annex A)", "=out_knock_k", "K", fmt="0.0")
     g.calc("Knock margin at the lowest MN of the methods", "=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,"
-           'mn_lowest,t_mixture_ref,p_boost_bar_ref,mn_ref,compression_ratio,"K")', "K", name="out_knock_k_mn_low",
-           result=True, fmt="0.0")
+           'mn_lowest,t_mixture_ref,p_boost_ref_bar,methane_number_ref,compression_ratio,"K")', "K",
+           name="out_knock_k_mn_low", result=True, fmt="0.0")
     g.note("Published methods differ by 5–10 MN on the same gas (EN 16726 Annex A; Kubesh, King & Liss 1992 with "
            "the paper's or ISO 15403-1's MON-to-MN): judge the margin at the lowest.")
     g.note("The engine's required methane number, and the method it is stated in, come from the engine's declared "
            "datasheet.")
     g.row += 1
     g.calc("Methane number needed", "=KNOCK_MN_REQUIRED(t_mixture,p_boost_bar,compression_ratio,t_mixture_ref,"
-           "p_boost_bar_ref,mn_ref,compression_ratio)", "-", name="mn_needed", fmt="0.0")
+           "p_boost_ref_bar,methane_number_ref,compression_ratio)", "-", name="mn_needed", fmt="0.0")
     g.calc("Shaft power", "=electrical_kw/generator_efficiency", "kW", name="shaft_kw", fmt="0")
     g.calc("BMEP", "=ENGINE_BMEP(shaft_kw,displacement_l,speed_rpm,4)", "bar", name="bmep_bar", fmt="0.0")
     g.calc("Generator pole pairs", "=GEN_POLE_PAIRS(frequency_hz,speed_rpm)", "-", name="pole_pairs", fmt="0")
@@ -277,9 +293,9 @@ def _sizing(b: DemoBook) -> None:
     h.calc("HT plate exchanger area", "=ua_plate*1000/u_plate_w_m2_k", "m²", name="out_area_plate", result=True,
            fmt="0.0")
     h.calc("Exhaust exchanger UA needed", "=HX_UA(q_exhaust_calc,t_exhaust_in,t_stack,t_water_after_ht,"
-           "t_water_out,exh_arrangement)", "kW/K", name="ua_exhaust", fmt="0.00")
+           "t_water_out,exhaust_arrangement)", "kW/K", name="ua_exhaust", fmt="0.00")
     h.calc("Exhaust exchanger area (gas side)", "=HX_AREA(q_exhaust_calc,u_exhaust_w_m2_k,t_exhaust_in,t_stack,"
-           "t_water_after_ht,t_water_out,exh_arrangement)", "m²", name="out_area_exh", result=True, fmt="0.0")
+           "t_water_after_ht,t_water_out,exhaust_arrangement)", "m²", name="out_area_exh", result=True, fmt="0.0")
 
     c = b.sheet("Coolers", "LT dry cooler and HT emergency cooler at the design ambient")
     c.calc("LT dry cooler UA (crossflow)", '=DRYCOOLER_UA(q_cac_lt_kw,t_lt_hot,t_lt_cold,t_ambient,t_air_out_lt,'
@@ -321,8 +337,9 @@ def _site(b: DemoBook) -> None:
     s.calc("Site altitude (Inputs)", "=site_altitude_m", "m", fmt="0")
     s.calc("Standard-atmosphere pressure at the site (ISO 2533)", "=SITE_PRESSURE(site_altitude_m)", "bar(a)",
            name="out_site_pressure", result=True, fmt="0.0000")
-    s.calc("Design-day ambient pressure (Inputs) − standard atmosphere", "=p_ambient_bar-out_site_pressure", "bar",
-           fmt="0.000", note="the day's weather moves the pressure")
+    s.calc("Design-day weather correction (Inputs)", "=p_ambient_offset_bar", "bar", fmt="0.000")
+    s.calc("Ambient pressure used on every sheet (Inputs)", "=p_ambient_bar", "bar(a)", fmt="0.0000",
+           note="the standard atmosphere + the correction")
     s.calc("Design intake-air temperature (Inputs: design-day ambient)", "=t_ambient", "°C", fmt="0.0")
 
     s.heading("Declared derating by altitude and intake-air temperature [factor on the declared output]")
@@ -401,7 +418,9 @@ def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
     def per(expr_exhaust, expr_loop):
         return [f'=IF({c}{src}="exhaust",{expr_exhaust},{expr_loop})' for c in cols]
 
-    kinds = s.table_row("stage kind", per('"stream"', '"loop"'))
+    # strict: the drop-down's two words only; any other word reaches the chain, which refuses it by name
+    kinds = s.table_row("stage kind", [f'=IF({c}{src}="{SOURCES[1]}","stream",IF({c}{src}="{SOURCES[0]}","loop",'
+                                       f'"not a heat source: "&{c}{src}))' for c in cols])
     # a loop's source inlet and capacity rate, and a stream's declared heat, are shown but not used
     t_in = s.table_row("source in [°C] (used for streams)", per("t_exhaust_in", "t_engine_out"), "°C", "0.0")
     c_src = s.table_row("source capacity rate [kW/K] (used for streams)",
@@ -426,14 +445,17 @@ def _order_block(s, title: str, order_cells: list, prefix: str) -> dict:
     cold = s.table_row("source outlet limit for the check", [
         f'=IF({c}{src}="exhaust",{c}{rows["t_hot_out"]},t_engine_in_max)' for c in cols], "°C", "0.0")
     q = f"$B${rows['duty']}:$C${rows['duty']}"
-    s.calc("Heat to the client", f"=SUM({q})", "kW", name=f"{prefix}_heat", fmt="0.0")
+    twice = f"$B${src}=$C${src}"
+    s.calc("Heat to the client", f"=IF({twice},NA(),SUM({q}))", "kW", name=f"{prefix}_heat", fmt="0.0",
+           note="#N/A when the order names one heat source twice")
     s.calc("Dump heat of the HT circuit", f"=SUM($B${rows['dump']}:$C${rows['dump']})", "kW",
            name=f"{prefix}_dump", fmt="0.0")
     s.calc("Water to the client", f"=$C${rows['t_out']}", "°C", name=f"{prefix}_t_flow", fmt="0.0")
     s.calc("Exhaust leaving its exchanger", f'=IF($B${src}="exhaust",$B${rows["t_hot_out"]},$C${rows["t_hot_out"]})',
            "°C", name=f"{prefix}_t_stack", fmt="0.0")
-    s.calc("Check of both ends of each stage", f"=HW_CHAIN_CHECK(t_water_in,water_flow_m3_h,{q},"
-           f"$B${rows['t_hot_in']}:$C${rows['t_hot_in']},min_approach_k,0,\"ethylene\",$B${cold}:$C${cold})", "",
+    s.calc("Check of both ends of each stage", f'=IF({twice},"CHECK: the same heat source twice ("&$B${src}&")",'
+           f"HW_CHAIN_CHECK(t_water_in,water_flow_m3_h,{q},"
+           f"$B${rows['t_hot_in']}:$C${rows['t_hot_in']},min_approach_k,0,\"ethylene\",$B${cold}:$C${cold}))", "",
            name=f"{prefix}_check")
     return rows
 
