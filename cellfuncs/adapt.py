@@ -6,9 +6,16 @@ handed over.  The rules, the same for both:
 
 * a number argument takes an int or float (a 1×1 range counts); booleans,
   text (even numeric text such as ``"12"``), NaN and infinities are refused;
-* a blank, ``None`` or ``""`` for an optional argument means "use the default";
-  for option, text and range arguments ``0`` means the same (the headless engine
-  and LibreOffice Calc hand an omitted argument ``F(1,,3)`` over as 0);
+* ``None`` (an omitted argument ``F(1,,3)`` or a blank cell: xlwings, the
+  headless engine and LibreOffice Calc all hand these over as ``None``) for an
+  optional argument means "use the default";
+* empty text ``""`` (or only spaces: an ``IF(..., "")``, a failed lookup) is a
+  value, not an omission: for a number or integer argument it is an error naming
+  the argument; for option, text, reference and range arguments it means "use the
+  default" (spreadsheet users write ``""`` for "the default word");
+* for option, text and range arguments ``0`` also means "use the default"
+  (LibreOffice Calc hands a reference to an empty cell over as 0; for a number
+  argument that 0 is the number 0);
 * option words are matched case-insensitively with surrounding spaces ignored;
 * a range argument becomes a tuple of rows of cells (float, str or ``None``);
   a scalar becomes ``((v,),)`` and a 1-D list a column;
@@ -265,8 +272,8 @@ _LISTS = {"stages": _stages, "words": _words, "numbers": _numbers, "axis": _axis
 def _one(arg, v):
     kind = arg.kind
     if kind in RANGE_KINDS:
-        # an optional range given 0 is what LibreOffice Calc hands over for an argument left
-        # out in the middle, F(A1:B6;;"x") (a range can't be the number 0)
+        # an optional range given 0: LibreOffice Calc hands a reference to one empty cell over
+        # as 0 (a range can't be the number 0)
         if v is None or (isinstance(v, str) and v.strip() == "") or (
                 (arg.optional or kind == "amounts") and type(v) in _NUMBER_TYPES and v == 0):
             if kind == "amounts":  # may always be left empty (two-column components range)
@@ -278,6 +285,8 @@ def _one(arg, v):
         shaper = _LISTS.get(kind)
         return rows if shaper is None else shaper(arg.name, rows)
     v = _scalar(arg.name, v)
+    if kind in ("number", "integer") and isinstance(v, str) and v.strip() == "":
+        raise CellTypeError(f"{arg.name}: empty text is not a number" + _empty_hint(arg))
     if is_blank(v) or (kind in ("option", "text") and isinstance(v, _NUMBER_TYPES)
                        and not isinstance(v, bool) and v == 0):
         if arg.optional:
@@ -316,6 +325,15 @@ def _one(arg, v):
             raise CellTypeError(f"{arg.name}: {v!r} is not text")
         return v.strip()
     raise RuntimeError(f"unknown argument kind {kind!r}")  # pragma: no cover
+
+
+def _empty_hint(arg) -> str:
+    """What to do instead of empty text in a number argument."""
+    if arg.default is REQUIRED:
+        return " (a number is required)"
+    d = arg.default
+    what = f"the default {d:g}" if isinstance(d, _NUMBER_TYPES) and not isinstance(d, bool) else "the default"
+    return f" (leave the argument out, or leave the cell empty, for {what})"
 
 
 _isfinite = math.isfinite

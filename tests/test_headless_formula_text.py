@@ -12,18 +12,19 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from cellfuncs.headless.formula_text import TAG, rewrite
+from cellfuncs.headless.formula_text import OMITTED, TAG, rewrite
 
 OURS = frozenset({"HX_LMTD", "EXH_FLOW", "GAS_CV"})
+O = '"' + OMITTED + '"'  # the text standing for an omitted argument
 
 
 @pytest.mark.parametrize("formula, expected", [
-    ('=EXH_FLOW(3650,1.85,A2:A9,B2:B9,"net",,0.6,1)', 'EXH_FLOW(3650,1.85,A2:A9,B2:B9,"net","",0.6,1)'),
-    ("=HX_LMTD(90,,60,80)", 'HX_LMTD(90,"",60,80)'),
-    ("=HX_LMTD(1,2,)", 'HX_LMTD(1,2,"")'),
-    ("=HX_LMTD(1, ,3,4)", 'HX_LMTD(1,"" ,3,4)'),
+    ('=EXH_FLOW(3650,1.85,A2:A9,B2:B9,"net",,0.6,1)', 'EXH_FLOW(3650,1.85,A2:A9,B2:B9,"net",' + O + ',0.6,1)'),
+    ("=HX_LMTD(90,,60,80)", 'HX_LMTD(90,' + O + ',60,80)'),
+    ("=HX_LMTD(1,2,)", 'HX_LMTD(1,2,' + O + ')'),
+    ("=HX_LMTD(1, ,3,4)", 'HX_LMTD(1,' + O + ' ,3,4)'),
     ("=HX_LMTD()", "HX_LMTD()"),
-    ('=IF(A1,HX_LMTD(1,,3,4),"a,,b")', 'IF(A1,HX_LMTD(1,"",3,4),"a,,b")'),   # commas in text stay
+    ('=IF(A1,HX_LMTD(1,,3,4),"a,,b")', 'IF(A1,HX_LMTD(1,' + O + ',3,4),"a,,b")'),   # commas in text stay
     ("=ROUND(2.5,)", "ROUND(2.5,)"),                                          # built-ins untouched
     ('=_xludf.HX_LMTD(100,60,30,40.2,"parallel")', 'HX_LMTD(100,60,30,40.2,"parallel")'),
     ("='[1]'!HX_LMTD(1,2,3,4)", "HX_LMTD(1,2,3,4)"),
@@ -40,7 +41,7 @@ def test_rewrites(formula, expected):
 
 def test_tag_goes_first_and_omissions_still_fill():
     r = rewrite("=HX_LMTD(90,,60,80)", OURS, TAG + "7")
-    assert r.text == f'HX_LMTD("{TAG}7",90,"",60,80)'
+    assert r.text == f'HX_LMTD("{TAG}7",90,{O},60,80)'
     assert rewrite("=HX_LMTD()", OURS, TAG + "1").text == f'HX_LMTD("{TAG}1")'
 
 

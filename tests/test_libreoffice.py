@@ -273,6 +273,8 @@ def _lo_runs(work: Path) -> dict:
     tasks += [{"kind": "open", "path": str(p), "recalc": True} for p in copies]
     tasks.append({"kind": "describe", "names": [e.name for e in catalogue.entries()]})
     tasks.append({"kind": "open", "path": str(calc_made), "recalc": True})
+    tasks.append({"kind": "cells", "values": OMITTED_VALUES, "cells": [[r, f, 1, 1] for r, f in OMITTED_CELLS],
+                  "save": None})
     got = _drive(work / "profile_addin", tasks, work, "addin")
 
     # an extension that says it was built by another Python (3.0): each function shows the text
@@ -294,10 +296,35 @@ def _lo_runs(work: Path) -> dict:
               "pdf": {"sheet": "Results", "path": str(pdf)}} for p, pdf in zip(copies, pdfs)]
     plain = _drive(bare, tasks, work, "bare")
     return {"examples": got[0], "expected": expected, "calc_made": calc_made,
-            "demos": dict(zip((p.name for p in DEMOS), got[1:-2])), "wizard": got[-2],
-            "calc_made_in_calc": got[-1], "other_python": mismatch[0],
+            "demos": dict(zip((p.name for p in DEMOS), got[1:-3])), "wizard": got[-3],
+            "calc_made_in_calc": got[-2], "omitted": got[-1], "other_python": mismatch[0],
             "plain": dict(zip((p.name for p in DEMOS), plain)),
             "pdfs": dict(zip((p.name for p in DEMOS), pdfs)), "work": work}
+
+
+#: an argument left out, empty text and an empty cell in Calc (a gas in A1:B5, C20 left empty)
+_GAS = (("methane", 92.0), ("ethane", 4.5), ("propane", 1.0), ("nitrogen", 1.5), ("carbon dioxide", 1.0))
+OMITTED_VALUES = [[f"{c}{i}", v[j]] for i, v in enumerate(_GAS, start=1) for j, c in enumerate("AB")]
+_EXH = 'EXH_FLOW(3650;1.85;A1:A5;B1:B5;"net";{};0.6;1)'
+OMITTED_CELLS = [("D1", "=HX_LMTD(100;60;30;40.2;)"), ("D2", "=HX_LMTD(100;60;30;40.2)"),
+                 ("D3", "=" + _EXH.format("")), ("D4", "=" + _EXH.format("25")),
+                 ("D5", "=" + _EXH.format('""')), ("D6", "=" + _EXH.format('IF(FALSE();1;"")')),
+                 ("D7", "=" + _EXH.format("C20")), ("D8", "=" + _EXH.format("0"))]
+
+
+def test_an_argument_left_out_in_calc_takes_its_default(lo):
+    """Calc hands an argument left out (in the middle or at the end) over as void (None): the
+    catalogue default applies, as in Excel (EXH_FLOW t_ambient = 25 °C, catalogue); empty text
+    is #VALUE! as in Excel and headless; a reference to an empty cell arrives as 0, which for a
+    number argument is the number 0 (docs/libreoffice.md, "Difference to Excel")."""
+    cells = {ref.split("!")[1]: c for ref, c in lo["omitted"].items()}
+    default = catalogue.by_name("EXH_FLOW").args[5].default
+    assert default == 25.0
+    assert not cells["D1"]["error"] and cells["D1"]["value"] == cells["D2"]["value"]
+    assert not cells["D3"]["error"] and cells["D3"]["value"] == cells["D4"]["value"]
+    assert CALC_ERRORS.get(cells["D5"]["error"]) == "#VALUE!"
+    assert CALC_ERRORS.get(cells["D6"]["error"]) == "#VALUE!"
+    assert not cells["D7"]["error"] and cells["D7"]["value"] == cells["D8"]["value"] != cells["D4"]["value"]
 
 
 def test_every_catalogue_example_computes_in_calc_as_headless(lo):

@@ -8,12 +8,14 @@ imported on first use, so building the catalogue imports no physics.
 
 Argument kinds
 --------------
-``number``   a real number; the adapters reject text, booleans, NaN.
+``number``   a real number; the adapters reject text (empty text ``""``
+             included), booleans, NaN.  An omitted argument or a blank cell
+             means "use the default".
 ``integer``  a number that must be whole (pole pairs, stage index).
 ``option``   one word from ``options`` (case-insensitive, spaces ignored;
-             ``aliases`` maps more words onto them).  A blank, ``""`` or ``0``
-             means "use the default" (the headless engine hands an omitted
-             argument over as 0).
+             ``aliases`` maps more words onto them).  Omitted, a blank, ``""``
+             or ``0`` means "use the default" (LibreOffice Calc hands a
+             reference to an empty cell over as 0).
 ``text``     free text (a unit name, a reference condition ``"15/15"``).
 ``range``    a block of cells: the core receives a tuple of rows, each a tuple
              of cells; a cell is a float, a str or ``None`` (blank).
@@ -93,7 +95,8 @@ class Arg:
     kind : str
         One of :data:`KINDS`.
     default : object
-        :data:`REQUIRED`, or the value used when the cell is blank.  ``None``
+        :data:`REQUIRED`, or the value used when the argument is omitted or
+        its cell is blank.  ``None``
         is allowed and means "the core decides" (documented in ``help``).
     options : tuple of str
         Allowed words for ``option`` arguments (lower case, canonical).

@@ -497,7 +497,7 @@ def _balance(b: DemoBook) -> None:
     p.calc("Total efficiency", '=CHP_BALANCE(fuel_power_kw,electrical_kw,out_heat_to_client,"total")', "-",
            name="out_eta_total", result=True, fmt="0.0%")
     p.calc("Heat rate", "=CHP_HEAT_RATE(eta_el)", "kJ/kWh", name="out_heat_rate", fmt="0")
-    p.calc("Primary energy savings (Directive 2012/27/EU Annex II)", '=CHP_PES(eta_el,eta_th,"","",pes_fuel,'
+    p.calc("Primary energy savings (Directive 2012/27/EU Annex II)", '=CHP_PES(eta_el,eta_th,,,pes_fuel,'
            'construction_year,"hot-water",voltage_kv,onsite_share)', "-", name="out_pes", result=True, fmt="0.0%",
            note="references of Delegated Regulation (EU) 2015/2402, Annex IV grid-loss factor")
 

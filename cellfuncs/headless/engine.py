@@ -14,7 +14,8 @@ Workarounds for what the engine does not do by itself (all here):
 
 * an omitted argument ``F(1,,3)`` would reach our functions as 0: the formula
   text is rewritten (:mod:`~cellfuncs.headless.formula_text`) so it arrives as
-  ``""`` = "use the default";
+  the private text :data:`~cellfuncs.headless.formula_text.OMITTED`, which the
+  callback turns into ``None`` ("missing": the default applies, as in Excel);
 * the engine's error values carry no text we can read back: each catalogue
   call gets a tag argument and the callback files the message under it;
 * tables (for structured references) are not read from the file: they are
@@ -47,7 +48,7 @@ import zipfile
 from cellfuncs.errors import CellInputError
 from cellfuncs.headless.package import ErrorText, col_letters
 
-from .formula_text import TAG, rewrite
+from .formula_text import OMITTED, TAG, rewrite
 
 __all__ = ["KIND_OF_CODE", "CODE_OF_KIND", "make_callback", "engine_error", "is_engine_error",
            "engine_error_message", "Model", "INTERNAL_ERRORS"]
@@ -118,7 +119,9 @@ class _PassThrough(Exception):
 
 
 def _raw(v):
-    """An engine argument -> the plain value the shared coercion expects."""
+    """An engine argument -> the plain value the shared coercion expects (an omitted one: None)."""
+    if v == OMITTED:
+        return None
     if isinstance(v, dict) and v.get("type") == "Error":
         raise _PassThrough(v)
     if isinstance(v, list):

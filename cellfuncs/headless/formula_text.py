@@ -6,9 +6,10 @@ respected) that, for the engine's private copy of a workbook only:
 * removes the prefixes Excel writes before add-in functions it did not know
   (``_xludf.``, ``'[1]'!``, ``cellfuncs.xlam!``) from calls to catalogue functions;
 * fills an omitted argument of a catalogue function (``F(1,,3)``, ``F(1,)``) with
-  ``""``, which the shared coercion (:mod:`cellfuncs.adapt`) reads as "use the
-  default" exactly as a blank reaches a function in Excel — an engine would
-  otherwise hand the function a 0;
+  the text :data:`OMITTED` (a private-use character), which the engine callback
+  turns into ``None`` = "missing", as an omitted argument reaches a function in
+  Excel — an engine would otherwise hand the function a 0, and ``""`` is a value
+  of its own (empty text: an error for a number argument);
 * puts a tag before the first argument of every catalogue call so a function's
   one-line message can be tied to the cell that called it;
 * turns references into other workbooks into ``#REF!`` (no link is followed);
@@ -28,10 +29,13 @@ from dataclasses import dataclass, field
 #: functions of our Calc extension (cellfuncs.calc)
 _ADDIN_PREFIXES = ("_XLUDF.", "ORG.CELLFUNCS.CALC.CELLFUNCTIONS.")
 
-__all__ = ["TAG", "Rewritten", "rewrite", "split_sheet_ref"]
+__all__ = ["TAG", "OMITTED", "Rewritten", "rewrite", "split_sheet_ref"]
 
 #: first character of the tag argument (a private-use character, never typed in a workbook)
 TAG = "\ue000"
+#: the text standing for an omitted argument of a catalogue call (another private-use character)
+OMITTED = "\ue001"
+_OMITTED_TEXT = '"' + OMITTED + '"'
 
 _NAME = re.compile(r"[A-Za-z_\\][A-Za-z0-9_.\\]*")
 _CELL = r"\$?[A-Za-z]{1,3}\$?\d+"
@@ -194,7 +198,7 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None, sheet
             while j < n and s[j] in " \t\r\n":
                 j += 1
             if j < n and s[j] in ",)":
-                out.append('""')
+                out.append(_OMITTED_TEXT)
             expect_arg = False
         if ch == '"':
             j = _skip_quoted(s, i, '"')
@@ -352,6 +356,6 @@ def rewrite(text: str, catalogue_names: frozenset, tag: str | None = None, sheet
         out.append(ch)
         i += 1
     if expect_arg:
-        out.append('""')
+        out.append(_OMITTED_TEXT)
     res.text = "".join(out)
     return res

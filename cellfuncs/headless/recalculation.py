@@ -214,6 +214,32 @@ def _refresh_tables(model):
     return bool(tables)
 
 
+#: rounds of "keep the cached values of the cells not computed, evaluate again"
+MAX_SETTLE_ROUNDS = 8
+#: above this many such cells in one round they all keep their cached values (no tracing)
+MAX_TRACED_GAPS = 1000
+
+
+def _gap_roots(model, fresh: dict) -> list:
+    """The cells of ``fresh`` that use no other cell of ``fresh`` (where a gap starts).
+
+    All of ``fresh`` when the engine cannot say which cells use which (INDIRECT or OFFSET in
+    the workbook, a trace over its budget), when there are more than :data:`MAX_TRACED_GAPS`,
+    or when they all use each other (a cycle).
+    """
+    if len(fresh) < 2 or len(fresh) > MAX_TRACED_GAPS:
+        return list(fresh)
+    inner = set()
+    for key in sorted(fresh):
+        if key in inner:
+            continue  # its dependents were traced with the cell it depends on
+        deps = model.dependents([key])
+        if deps is None:
+            return list(fresh)
+        inner |= {k for k in deps if k != key and k in fresh}
+    return [k for k in fresh if k not in inner] or list(fresh)
+
+
 def _settle(model, book, stale=lambda key: False):
     """Evaluate; a cell the engine cannot compute gets its cached value, and the rest is evaluated again.
 
@@ -229,7 +255,7 @@ def _settle(model, book, stale=lambda key: False):
     if model.data_tables and _refresh_tables(model):
         model.evaluate()
     late = {}
-    for _ in range(3):
+    for _ in range(MAX_SETTLE_ROUNDS):
         fresh = {}
         for key in model.formula_cells:
             if key in late or key in model.gaps:
@@ -251,6 +277,9 @@ def _settle(model, book, stale=lambda key: False):
                 fresh[key] = (LIMITATION_KINDS[kind], cached)
         if not fresh:
             break
+        # only the cells where the gap starts keep their cached value; a cell that merely uses
+        # one of them is computed from that kept value in the next round
+        fresh = {k: fresh[k] for k in _gap_roots(model, fresh)}
         late.update(fresh)
         for (s, r, c), (_, cached) in fresh.items():
             if stale((s, r, c)) or isinstance(cached, ErrorText):
