@@ -31,6 +31,7 @@ from urllib.parse import unquote
 
 from cellfuncs.headless import package_edit as xlsx_edit
 from cellfuncs.headless import package_zip as xlsx_zip
+from cellfuncs.headless.package_formula import col_index, col_letters  # noqa: F401 - re-exported
 from cellfuncs.headless.package_sheet import find_elements, open_end, parse_only, start_tag
 
 __all__ = ["BookError", "ErrorText", "Package", "check_output_kind", "col_index", "col_letters", "split_ref"]
@@ -50,19 +51,6 @@ _MACRO_TYPES = ("macroenabled",)
 _REF_RE = re.compile(r"^\$?([A-Za-z]{1,3})\$?(\d+)$")  # a reference text, not XML
 
 
-def col_index(letters: str) -> int:
-    n = 0
-    for ch in letters.upper():
-        n = n * 26 + (ord(ch) - 64)
-    return n
-
-
-def col_letters(n: int) -> str:
-    s = ""
-    while n:
-        n, r = divmod(n - 1, 26)
-        s = chr(65 + r) + s
-    return s
 
 
 def split_ref(ref: str):

@@ -28,19 +28,24 @@ _LETTERS = set("ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz")
 _DIGITS = set("0123456789")
 
 
-def _col_num(letters: str) -> int:
+def col_index(letters: str) -> int:
+    """Column number of column letters ("A" -> 1, "XFD" -> 16384)."""
     n = 0
     for ch in letters.upper():
         n = n * 26 + (ord(ch) - 64)
     return n
 
 
-def _col_text(n: int) -> str:
+def col_letters(n: int) -> str:
+    """Column letters of a column number (1 -> "A")."""
     s = ""
     while n:
         n, r = divmod(n - 1, 26)
         s = chr(65 + r) + s
     return s
+
+
+_col_num, _col_text = col_index, col_letters
 
 
 def _read_col(s: str, i: int):

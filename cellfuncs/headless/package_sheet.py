@@ -24,6 +24,8 @@ from __future__ import annotations
 
 import xml.parsers.expat as expat
 
+from cellfuncs.headless.package_formula import col_letters as col_text
+
 
 def escape(data: str, entities: dict | None = None) -> str:
     """``&``, ``<``, ``>`` (and ``entities``) escaped, as xml.sax.saxutils.escape does; that
@@ -370,12 +372,6 @@ class _Visitor:
         pass
 
 
-def col_text(n: int) -> str:
-    s = ""
-    while n:
-        n, r = divmod(n - 1, 26)
-        s = chr(65 + r) + s
-    return s
 
 
 def _num_text(v: float) -> str:
