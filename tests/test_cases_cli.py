@@ -121,6 +121,16 @@ def test_semicolon_and_utf16_csv(book, tmp_path):
     assert float(row["out_lmtd"]) == pytest.approx(ht.LMTD(100, 60, 30, 40.2), rel=1e-9)  # ht.LMTD
 
 
+def test_decimal_comma_is_refused_with_a_hint(book, tmp_path):
+    """A European decimal comma ("40,2") is not read as a number: one line that says how to write it."""
+    semi = tmp_path / "comma.csv"
+    semi.write_text("t_hot_in;t_cold_out\n100;40,2\n", encoding="utf-8")
+    p = _run("cases", str(book), str(semi), "-o", str(tmp_path / "res.csv"))
+    assert p.returncode == 2
+    assert p.stderr.count("\n") == 1 and "decimal point as '.'" in p.stderr, p.stderr
+    assert not (tmp_path / "res.csv").exists()
+
+
 def test_numbers_have_ten_significant_digits(book, tmp_path):
     cases = tmp_path / "c.csv"
     _write(cases, [["t_hot_in"], [100]])

@@ -16,6 +16,8 @@ error cell; numbers are written with 10 significant digits.
 
 from __future__ import annotations
 
+import re
+
 import csv
 import io
 import os
@@ -94,8 +96,10 @@ class CaseRunner:
             text = row.get(target) or ""
             v = parse_value(text, f"{where}, column {target}")
             if isinstance(v, str) and numeric:
+                hint = ("; write the decimal point as '.' (e.g. 0.5), not a comma"
+                        if re.fullmatch(r"\s*[-+]?\d*,\d+\s*", text) else "")
                 raise BookError(f"{where}, column {target}: {text.strip()!r} is not a number "
-                                "(this input holds a number)")
+                                f"(this input holds a number){hint}")
             vals.append(v)
         return vals
 
