@@ -16,6 +16,7 @@ one receives water hotter than itself and takes heat out of the circuit
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 from cellfuncs.errors import CellInputError, CellTypeError, check_range, fmt
 from cellfuncs.recovery import water as _w
@@ -587,6 +588,27 @@ def _rate_result(result) -> str:
     raise CellTypeError(f"result: {result!r} is not one of " + ", ".join(f'"{o}"' for o in RATE_RESULTS))
 
 
+def _as_tuple(values):
+    return None if values is None else tuple(values)
+
+
+@lru_cache(maxsize=256)
+def _rated_chain(t_water_in, water_flow_m3_h, th, ch, ua, arrangement, glycol_fraction, glycol, kinds,
+                 duties, t_engine_in_max, engine_flow, engine_glycol_fraction, engine_glycol):
+    """The rated chain for one set of inputs, solved once however many cells ask for a part of it.
+
+    A workbook asks for each stage's temperature, duty and dump in separate cells (the per-cell
+    form); all take the same solution.  The stage dicts are only read by the callers.  Errors are
+    not cached (they are raised again).
+    """
+    return tuple(rate_chain_water(t_water_in, water_flow_m3_h, list(th), list(ch), list(ua), arrangement,
+                                  glycol_fraction, glycol, None if kinds is None else list(kinds),
+                                  None if duties is None else list(duties),
+                                  None if t_engine_in_max is None else list(t_engine_in_max),
+                                  None if engine_flow is None else list(engine_flow),
+                                  engine_glycol_fraction, engine_glycol))
+
+
 def hw_chain_rate(t_water_in, water_flow_m3_h, t_source_in, c_source_kw_k, ua_kw_k, arrangement="counter",
                   result="t_out", glycol_fraction=0.0, glycol="ethylene", stage_kinds=None, duties_kw=None,
                   t_engine_in_max=None, engine_flow_m3_h=None, stage=None, engine_glycol_fraction=0.0,
@@ -613,11 +635,12 @@ def hw_chain_rate(t_water_in, water_flow_m3_h, t_source_in, c_source_kw_k, ua_kw
     ch = _stage_values("c_source_kw_k", c_source_kw_k)
     ua = _stage_values("ua_kw_k", ua_kw_k)
     kinds = [stage_kinds] if isinstance(stage_kinds, str) else stage_kinds
-    res = rate_chain_water(t_water_in, water_flow_m3_h, th, ch, ua, arrangement, glycol_fraction, glycol,
-                           None if kinds is None else list(kinds), _optional_values("duties_kw", duties_kw),
-                           _optional_values("t_engine_in_max", t_engine_in_max),
-                           _optional_values("engine_flow_m3_h", engine_flow_m3_h),
-                           engine_glycol_fraction, engine_glycol)
+    res = _rated_chain(t_water_in, water_flow_m3_h, tuple(th), tuple(ch), tuple(ua), arrangement,
+                       glycol_fraction, glycol, None if kinds is None else tuple(kinds),
+                       _as_tuple(_optional_values("duties_kw", duties_kw)),
+                       _as_tuple(_optional_values("t_engine_in_max", t_engine_in_max)),
+                       _as_tuple(_optional_values("engine_flow_m3_h", engine_flow_m3_h)),
+                       engine_glycol_fraction, engine_glycol)
     if word.startswith("total_"):
         if stage is not None:
             raise CellInputError(f"stage: {stage!r} given with result \"{word}\"; a total has no stage")
