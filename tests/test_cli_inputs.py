@@ -77,7 +77,7 @@ def test_inputs_shows_cached_output_values_of_a_computed_book(tmp_path, capsys):
     for o in obj["outputs"]:
         sheet, _, ref = o["ref"].rpartition("!")
         assert o["value"] == wb[sheet.strip("'")][ref].value
-    assert {"exhaust_flow_kg_h", "phx_duty"} <= set(obj["cases_columns"])
+    assert {"exhaust_flow_kg_h", "plate_duty_kw"} <= set(obj["cases_columns"])
 
 
 @pytest.mark.parametrize("args, message", [

@@ -21,7 +21,7 @@ def _named(*names):
 
 def test_margin_at_lowest_mn_not_above_default_margin():
     mn_default, mn_low, spread, m_default, m_low = _named(
-        "mn_gas", "mn_lowest", "mn_spread", "out_margin_k", "out_knock_margin_mn_low")
+        "mn_gas", "mn_lowest", "mn_spread", "out_knock_margin_k", "out_knock_margin_lowest_mn_k")
     assert all(isinstance(v, (int, float)) for v in (mn_default, mn_low, spread, m_default, m_low))
     assert spread > 0 and mn_low <= mn_default
     if mn_low < mn_default:

@@ -27,6 +27,8 @@ MNS = (60, 70, 80, 90, 100)
 T_AMB = (10, 15, 20, 25, 30, 35, 40, 45)
 RHS = (0.3, 0.6, 0.9)
 ARGS_MIX = "air_ratio,gas_names,gas_amounts,t_ambient,rh_ambient,p_ambient_bar"
+#: the declared reference point of the knock functions (the compression ratio is the same as the site's)
+KNOCK_REF = "t_mixture_ref,p_boost_ref_bar,methane_number_ref,compression_ratio"
 
 
 def build(path: str) -> None:
@@ -38,21 +40,21 @@ def build(path: str) -> None:
     b.input("rh_ambient", "Ambient relative humidity", 0.65, "-", "fraction 0–1")
     b.input("p_ambient_bar", "Ambient pressure", 0.98, "bar(a)")
     b.input_heading("Engine (values as from a declared datasheet; invented here)")
-    b.input("fuel_kw", "Fuel power (net)", 2900, "kW")
+    b.input("fuel_power_kw", "Fuel power (net)", 2900, "kW")
     b.input("air_ratio", "Air excess ratio λ", 1.9, "-")
-    b.input("p_boost", "Boost pressure after the compressor", 3.4, "bar(a)")
-    b.input("eta_c", "Compressor isentropic efficiency", 0.78, "-")
-    b.input("cr", "Compression ratio (effective)", 12.0, "-",
+    b.input("p_boost_bar", "Boost pressure after the compressor", 3.4, "bar(a)")
+    b.input("isentropic_efficiency", "Compressor isentropic efficiency", 0.78, "-")
+    b.input("compression_ratio", "Compression ratio (effective)", 12.0, "-",
             "use the effective ratio for early/late inlet-valve closing")
-    b.input("t_ref", "Reference point: mixture temperature", 50, "°C", "rated knock-free point (datasheet)")
-    b.input("p_ref", "Reference point: boost pressure", 3.4, "bar(a)")
-    b.input("mn_ref", "Reference point: methane number", 80, "-")
-    b.input("k_mn", "Mixture-temperature shift per MN point", 0.8, "K", "uncertain (±30 %): use engine data")
+    b.input("t_mixture_ref", "Reference point: mixture temperature", 50, "°C", "rated knock-free point (datasheet)")
+    b.input("p_boost_ref_bar", "Reference point: boost pressure", 3.4, "bar(a)")
+    b.input("methane_number_ref", "Reference point: methane number", 80, "-")
+    b.input("k_per_mn", "Mixture-temperature shift per MN point", 0.8, "K", "uncertain (±30 %): use engine data")
     b.input_heading("Charge-air cooler")
-    b.input("t_after_ht", "Mixture after the HT stage", 92, "°C")
-    b.input("t_intake", "Mixture after the LT stage (intake)", 45, "°C")
-    b.input("dry_approach", "Dry-cooler approach (LT water above ambient)", 8, "K", "invented demo figure")
-    b.input("lt_approach", "LT-stage approach (mixture above LT water)", 7, "K", "invented demo figure")
+    b.input("t_mixture_ht", "Mixture after the HT stage", 92, "°C")
+    b.input("t_mixture", "Mixture after the LT stage (intake)", 45, "°C")
+    b.input("drycooler_approach_k", "Dry-cooler approach (LT water above ambient)", 8, "K", "invented demo figure")
+    b.input("lt_approach_k", "LT-stage approach (mixture above LT water)", 7, "K", "invented demo figure")
     b.input_table("Gas analysis", ("component", "mol-%"), GAS, ("gas_names", "gas_amounts"), unit="mol-%",
                   note="invented pipeline gas")
 
@@ -60,26 +62,31 @@ def build(path: str) -> None:
     c.calc("Methane number of the gas (EN 16726:2015 Annex A)", "=GAS_METHANE_NUMBER(gas_names,gas_amounts)",
            "-", name="mn_gas", fmt="0.0")
     c.calc("Mixture mass flow (dry air + water vapour + gas)",
-           '=CAC_MIXTURE_FLOW(fuel_kw,air_ratio,gas_names,gas_amounts,"net",t_ambient,rh_ambient,p_ambient_bar,"mixture")',
-           "kg/h", name="mix_flow", fmt="0")
-    c.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_ambient,p_ambient_bar,p_boost,eta_c,air_ratio,"
-           "gas_names,gas_amounts,t_ambient,rh_ambient)", "°C", name="t_comp_out", fmt="0.0")
+           '=CAC_MIXTURE_FLOW(fuel_power_kw,air_ratio,gas_names,gas_amounts,"net",t_ambient,rh_ambient,'
+           'p_ambient_bar,"mixture")',
+           "kg/h", name="mixture_flow_kg_h", fmt="0")
+    c.calc("Compressor outlet temperature", "=TURBO_T_OUT(t_ambient,p_ambient_bar,p_boost_bar,isentropic_efficiency,"
+           "air_ratio,gas_names,gas_amounts,t_ambient,rh_ambient)", "°C", name="t_air_out", fmt="0.0")
     c.calc("HT stage duty (compressor outlet → after HT)",
-           f"=CAC_DUTY(mix_flow,t_comp_out,t_after_ht,p_boost,{ARGS_MIX})", "kW", name="out_ht_duty",
-           result=True, fmt="0.0")
-    c.calc("LT stage duty (after HT → intake)", f"=CAC_DUTY(mix_flow,t_after_ht,t_intake,p_boost,{ARGS_MIX})",
-           "kW", name="out_lt_duty", result=True, fmt="0.0")
-    c.calc("Dew point of the mixture at boost pressure", f"=CAC_DEWPOINT(p_boost,{ARGS_MIX})", "°C",
-           name="out_dewpoint", result=True, fmt="0.0")
-    c.calc("Intake temperature above the dew point", "=t_intake-out_dewpoint", "K", name="dew_margin", fmt="0.0")
-    c.calc("Condensate in the LT stage", f"=CAC_CONDENSATE(mix_flow,t_intake,p_boost,{ARGS_MIX})", "kg/h",
-           name="out_condensate", fmt="0.0")
-    c.calc("Condensation check", '=IF(dew_margin>0,"OK: intake above the dew point",'
+           f"=CAC_DUTY(mixture_flow_kg_h,t_air_out,t_mixture_ht,p_boost_bar,{ARGS_MIX})", "kW",
+           name="out_ht_duty_kw", result=True, fmt="0.0")
+    c.calc("LT stage duty (after HT → intake)",
+           f"=CAC_DUTY(mixture_flow_kg_h,t_mixture_ht,t_mixture,p_boost_bar,{ARGS_MIX})", "kW",
+           name="out_lt_duty_kw", result=True, fmt="0.0")
+    c.calc("Dew point of the mixture at boost pressure", f"=CAC_DEWPOINT(p_boost_bar,{ARGS_MIX})", "°C",
+           name="out_t_dew_mixture", result=True, fmt="0.0")
+    c.calc("Intake temperature above the dew point", "=t_mixture-out_t_dew_mixture", "K", name="dew_margin_k",
+           fmt="0.0")
+    c.calc("Condensate in the LT stage", f"=CAC_CONDENSATE(mixture_flow_kg_h,t_mixture,p_boost_bar,{ARGS_MIX})",
+           "kg/h", name="out_condensate_kg_h", fmt="0.0")
+    c.calc("Condensation check", '=IF(dew_margin_k>0,"OK: intake above the dew point",'
            '"CONDENSATE: separate and drain it, or raise the intake temperature")', "", name="dew_check")
-    c.calc("Knock margin at the intake temperature", "=KNOCK_MARGIN(t_intake,p_boost,cr,mn_gas,t_ref,p_ref,"
-           "mn_ref,cr,\"K\",k_mn)", "K", name="out_margin_k", result=True, fmt="0.0")
-    c.calc("Knock margin in methane-number points", "=KNOCK_MARGIN(t_intake,p_boost,cr,mn_gas,t_ref,p_ref,"
-           "mn_ref,cr,\"MN\",k_mn)", "-", name="out_margin_mn", fmt="0.0")
+    c.calc("Knock margin at the intake temperature",
+           f'=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,mn_gas,{KNOCK_REF},"K",k_per_mn)', "K",
+           name="out_knock_margin_k", result=True, fmt="0.0")
+    c.calc("Knock margin in methane-number points",
+           f'=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,mn_gas,{KNOCK_REF},"MN",k_per_mn)', "-",
+           name="out_knock_margin_mn", fmt="0.0")
     c.heading("Methane number by method: the spread and the knock margin at its lowest")
     c.calc("Methane-number spread (highest − lowest method)",
            "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,\"spread\")", "-", name="mn_spread", fmt="0.0")
@@ -87,9 +94,10 @@ def build(path: str) -> None:
            "\"lowest\")", "-", name="mn_lowest", fmt="0.0")
     c.calc("Methods that apply to this gas", "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,\"count\")",
            "-", name="mn_methods_count", fmt="0")
-    c.calc("Knock margin at the default MN (EN 16726 Annex A)", "=out_margin_k", "K", fmt="0.0")
-    c.calc("Knock margin at the lowest MN of the methods", "=KNOCK_MARGIN(t_intake,p_boost,cr,mn_lowest,t_ref,"
-           "p_ref,mn_ref,cr,\"K\",k_mn)", "K", name="out_knock_margin_mn_low", result=True, fmt="0.0")
+    c.calc("Knock margin at the default MN (EN 16726 Annex A)", "=out_knock_margin_k", "K", fmt="0.0")
+    c.calc("Knock margin at the lowest MN of the methods",
+           f'=KNOCK_MARGIN(t_mixture,p_boost_bar,compression_ratio,mn_lowest,{KNOCK_REF},"K",k_per_mn)', "K",
+           name="out_knock_margin_lowest_mn_k", result=True, fmt="0.0")
     c.calc("Each method's methane number", "=GAS_METHANE_NUMBER_SPREAD(gas_names,gas_amounts,\"methods\")",
            "", name="mn_methods")
     c.note("Published methods differ by 5–10 MN on the same gas (EN 16726 Annex A; Kubesh, King & Liss 1992 "
@@ -97,10 +105,12 @@ def build(path: str) -> None:
     c.note("The engine's required methane number, and the method it is stated in, come from the engine's "
            "declared datasheet.")
     c.heading("Mixture-temperature limit and required methane number")
-    c.calc("Highest mixture temperature for this gas", "=KNOCK_T_LIMIT(p_boost,cr,mn_gas,t_ref,p_ref,mn_ref,cr,"
-           "k_mn)", "°C", name="out_t_limit", result=True, fmt="0.0")
-    c.calc("Methane number needed at the intake temperature", "=KNOCK_MN_REQUIRED(t_intake,p_boost,cr,t_ref,"
-           "p_ref,mn_ref,cr,k_mn)", "-", name="out_mn_required", fmt="0.0")
+    c.calc("Highest mixture temperature for this gas",
+           f"=KNOCK_T_LIMIT(p_boost_bar,compression_ratio,mn_gas,{KNOCK_REF},k_per_mn)", "°C",
+           name="out_t_mixture_limit", result=True, fmt="0.0")
+    c.calc("Methane number needed at the intake temperature",
+           f"=KNOCK_MN_REQUIRED(t_mixture,p_boost_bar,compression_ratio,{KNOCK_REF},k_per_mn)", "-",
+           name="out_methane_number_required", fmt="0.0")
     c.note("Knock margin is a screening index calibrated to one declared point; the engine's knock control "
            "and derating data govern.")
 
@@ -109,8 +119,8 @@ def build(path: str) -> None:
     first = g.row
     for t in T_MIX:
         r = g.row
-        g.table_row(t, [f"=KNOCK_MARGIN($A{r},p_boost,cr,{chr(66 + j)}${head},t_ref,p_ref,mn_ref,cr,\"K\",k_mn)"
-                        for j in range(len(MNS))], "K", "0.0")
+        g.table_row(t, [f'=KNOCK_MARGIN($A{r},p_boost_bar,compression_ratio,{chr(66 + j)}${head},{KNOCK_REF},'
+                        '"K",k_per_mn)' for j in range(len(MNS))], "K", "0.0")
     last = g.row - 1
     chart = ScatterChart()
     chart.title = "Knock margin against mixture temperature"
@@ -133,9 +143,9 @@ def build(path: str) -> None:
     first = a.row
     for t in T_AMB:
         r = a.row
-        cells = [f"=$A{r}+dry_approach+lt_approach",
-                 f"=KNOCK_MARGIN(B{r},p_boost,cr,mn_gas,t_ref,p_ref,mn_ref,cr,\"K\",k_mn)"]
-        cells += [f"=CAC_DEWPOINT(p_boost,air_ratio,gas_names,gas_amounts,$A{r},{rh},p_ambient_bar)"
+        cells = [f"=$A{r}+drycooler_approach_k+lt_approach_k",
+                 f'=KNOCK_MARGIN(B{r},p_boost_bar,compression_ratio,mn_gas,{KNOCK_REF},"K",k_per_mn)']
+        cells += [f"=CAC_DEWPOINT(p_boost_bar,air_ratio,gas_names,gas_amounts,$A{r},{rh},p_ambient_bar)"
                   for rh in RHS]
         a.table_row(t, cells, "", "0.0")
     last = a.row - 1
@@ -171,17 +181,17 @@ def build(path: str) -> None:
 
     res = b.sheet("Results", "Knock and condensation summary — Quarry Lane (invented)")
     res.calc("Methane number of the gas", "=mn_gas", "-", fmt="0.0")
-    res.calc("Compressor outlet temperature", "=t_comp_out", "°C", fmt="0.0")
-    res.calc("HT stage duty", "=out_ht_duty", "kW", result=True, fmt="0.0")
-    res.calc("LT stage duty", "=out_lt_duty", "kW", result=True, fmt="0.0")
-    res.calc("Dew point at boost pressure", "=out_dewpoint", "°C", result=True, fmt="0.0")
+    res.calc("Compressor outlet temperature", "=t_air_out", "°C", fmt="0.0")
+    res.calc("HT stage duty", "=out_ht_duty_kw", "kW", result=True, fmt="0.0")
+    res.calc("LT stage duty", "=out_lt_duty_kw", "kW", result=True, fmt="0.0")
+    res.calc("Dew point at boost pressure", "=out_t_dew_mixture", "°C", result=True, fmt="0.0")
     res.calc("Condensation check", "=dew_check", "")
-    res.calc("Knock margin at the intake temperature", "=out_margin_k", "K", result=True, fmt="0.0")
+    res.calc("Knock margin at the intake temperature", "=out_knock_margin_k", "K", result=True, fmt="0.0")
     res.calc("Methane-number spread over the methods", "=mn_spread", "-", fmt="0.0")
     res.calc("Lowest methane number of the methods", "=mn_lowest", "-", fmt="0.0")
-    res.calc("Knock margin at the lowest methane number", "=out_knock_margin_mn_low", "K", result=True,
+    res.calc("Knock margin at the lowest methane number", "=out_knock_margin_lowest_mn_k", "K", result=True,
              fmt="0.0")
-    res.calc("Highest mixture temperature for this gas", "=out_t_limit", "°C", result=True, fmt="0.0")
+    res.calc("Highest mixture temperature for this gas", "=out_t_mixture_limit", "°C", result=True, fmt="0.0")
     res.note("Methane-number methods differ by 5–10 MN on the same gas (see Chain).")
     res.note("The engine's required MN, and its method, come from its declared datasheet.")
     b.finish()
@@ -193,8 +203,9 @@ def summary(v: dict) -> list:
         x = v.get(name)
         return f"{x:.{d}f}" if isinstance(x, float) else str(x)
 
-    return [f"cooler: HT {f('out_ht_duty')} kW, LT {f('out_lt_duty')} kW; dew point {f('out_dewpoint')} °C, "
-            f"condensate {f('out_condensate', 2)} kg/h",
-            f"knock margin {f('out_margin_k')} K ({f('out_margin_mn')} MN); mixture limit {f('out_t_limit')} °C",
+    return [f"cooler: HT {f('out_ht_duty_kw')} kW, LT {f('out_lt_duty_kw')} kW; "
+            f"dew point {f('out_t_dew_mixture')} °C, condensate {f('out_condensate_kg_h', 2)} kg/h",
+            f"knock margin {f('out_knock_margin_k')} K ({f('out_knock_margin_mn')} MN); "
+            f"mixture limit {f('out_t_mixture_limit')} °C",
             f"methane number {f('mn_gas')} (default method), lowest {f('mn_lowest')} (spread {f('mn_spread')}); "
-            f"knock margin at the lowest {f('out_knock_margin_mn_low')} K"]
+            f"knock margin at the lowest {f('out_knock_margin_lowest_mn_k')} K"]
