@@ -44,6 +44,7 @@ from __future__ import annotations
 import math
 
 from cellfuncs.errors import CellInputError, check_range, fmt
+from cellfuncs.props import if97 as _if97
 
 __all__ = [
     "M_WATER",
@@ -73,11 +74,6 @@ T_TRIPLE = 273.16  # K
 P_TRIPLE = 611.657  # Pa
 T_LOW = 190.0  # K, lowest temperature accepted over ice
 
-# IAPWS-IF97 region 4 coefficients n1..n10
-_N = (0.11670521452767e4, -0.72421316703206e6, -0.17073846940092e2,
-      0.12020824702470e5, -0.32325550322333e7, 0.14915108613530e2,
-      -0.48232657361591e4, 0.40511340542057e6, -0.23855557567849,
-      0.65017534844798e3)
 # IAPWS 2011 sublimation pressure
 _SUB_A = (-0.212144006e2, 0.273203819e2, -0.610598130e1)
 _SUB_B = (0.333333333e-2, 0.120666667e1, 0.170333333e1)
@@ -89,24 +85,13 @@ _RV = ((-2.03150240, 2 / 6), (-2.68302940, 4 / 6), (-5.38626492, 8 / 6),
 
 
 def _p_liquid(T: float) -> float:
-    """IF97 eq. 30, T in K -> Pa."""
-    n = _N
-    th = T + n[8] / (T - n[9])
-    A = th * th + n[0] * th + n[1]
-    B = n[2] * th * th + n[3] * th + n[4]
-    C = n[5] * th * th + n[6] * th + n[7]
-    return (2.0 * C / (-B + math.sqrt(B * B - 4.0 * A * C))) ** 4 * 1e6
+    """IF97 eq. 30 (cellfuncs.props.if97), T in K -> Pa."""
+    return _if97.p_sat(T) * 1e6
 
 
 def _t_liquid(p: float) -> float:
-    """IF97 eq. 31, p in Pa -> K."""
-    n = _N
-    beta = (p * 1e-6) ** 0.25
-    E = beta * beta + n[2] * beta + n[5]
-    F = n[0] * beta * beta + n[3] * beta + n[6]
-    G = n[1] * beta * beta + n[4] * beta + n[7]
-    D = 2.0 * G / (-F - math.sqrt(F * F - 4.0 * E * G))
-    return (n[9] + D - math.sqrt((n[9] + D) ** 2 - 4.0 * (n[8] + n[9] * D))) / 2.0
+    """IF97 eq. 31 (cellfuncs.props.if97), p in Pa -> K."""
+    return _if97.t_sat(p * 1e-6)
 
 
 def _p_ice(T: float) -> float:
