@@ -1,6 +1,9 @@
 """Catalogue entries of emission conversions, dry exhaust volume and the acid dew point."""
 
+from cellfuncs.catalogue.gas import KIND_ALIASES
 from cellfuncs.catalogue.spec import Arg, CellFunction
+# the words the conversion core knows (a light module: math only), one list for both
+from cellfuncs.emissions.conversions import SPECIES, SPECIES_ALIASES, UNIT_ALIASES, UNITS
 
 CATEGORY = "cellfuncs · emissions"
 
@@ -21,19 +24,14 @@ AMOUNTS = Arg(
     "omit for a two-column components range",
     kind="amounts", default=None)
 
-_KIND_ALIASES = {"hhv": "gross", "superior": "gross", "higher": "gross",
-                 "lhv": "net", "inferior": "net", "lower": "net"}
 _KIND = Arg("kind", "Calorific value of the fuel energy: net (LHV) or gross (HHV), at 25 °C "
-            "combustion reference; engine-side functions default to net, as engine datasheets", kind="option", default="net", options=("gross", "net"),
-            aliases=_KIND_ALIASES)
-_UNITS = ("ppm", "mg/nm3", "mg/mj", "g/kwh")
-_UNIT_ALIASES = {"mg/nm³": "mg/nm3", "mg/m3n": "mg/nm3", "ppmv": "ppm", "ppmvd": "ppm",
-                 "µmol/mol": "ppm", "umol/mol": "ppm", "g/kwhe": "g/kwh", "g/kwh(el)": "g/kwh"}
+            "combustion reference; engine-side functions default to net, as engine datasheets",
+            kind="option", default="net", options=("gross", "net"), aliases=KIND_ALIASES)
 
 
 def _unit(name: str, what: str) -> Arg:
     return Arg(name, what + ": ppm and mg/Nm3 of dry exhaust at o2_reference_pct, mg/MJ of fuel, "
-               "g/kWh of electricity", kind="option", options=_UNITS, aliases=_UNIT_ALIASES)
+               "g/kWh of electricity", kind="option", options=UNITS, aliases=UNIT_ALIASES)
 
 
 _GAS = ([["methane", 92.0], ["ethane", 4.5], ["propane", 1.0], ["nitrogen", 1.5],
@@ -56,8 +54,7 @@ ENTRIES = [
               _unit("unit_wanted", "Unit wanted"),
               Arg("species", "NOx as NO2, CO, HCHO (formaldehyde), SO2, NH3, THC as CH4; matters "
                   "for ppm", kind="option", default="nox",
-                  options=("nox", "co", "hcho", "so2", "nh3", "thc"),
-                  aliases={"formaldehyde": "hcho", "ch2o": "hcho", "ammonia": "nh3"}),
+                  options=tuple(SPECIES), aliases=SPECIES_ALIASES),
               COMPONENTS_OPT, AMOUNTS,
               Arg("o2_reference_pct", "Reference O2 of the dry exhaust for ppm and mg/Nm3, 0 to "
                   "below 20.9", "vol-%", default=5.0),
