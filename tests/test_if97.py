@@ -191,7 +191,7 @@ def test_plain_water_does_not_import_coolprop():
     """HW_CP, HW_DENSITY, HW_FLOW, HW_DUTY, HW_CHAIN with plain water in a fresh interpreter."""
     code = (
         "import sys\n"
-        "from cellfuncs.recovery import water, chain\n"
+        "from cellfuncs.recovery import water, chain_results as chain\n"
         "water.hw_cp(60.0); water.hw_density(90.0)\n"
         "v = water.hw_flow(1000.0, 70.0, 90.0); water.hw_duty(v, 70.0, 90.0)\n"
         "chain.hw_chain(70.0, 40.0, (300.0, 500.0))\n"

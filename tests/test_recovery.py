@@ -19,7 +19,8 @@ from vectors import approx, params
 from cellfuncs.errors import CellInputError, CellTypeError
 from cellfuncs.recovery import chain, water
 from cellfuncs import adapt, catalogue
-from cellfuncs.recovery.chain import chain_temperatures, hw_chain, rate_chain, rate_chain_water
+from cellfuncs.recovery.chain import chain_temperatures, rate_chain, rate_chain_water
+from cellfuncs.recovery.chain_results import hw_chain
 from cellfuncs.recovery.water import hw_cp, hw_density, hw_duty, hw_flow
 
 

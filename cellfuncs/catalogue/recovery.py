@@ -103,7 +103,7 @@ HOT_WATER = [
     ),
     CellFunction(
         name="HW_CHAIN",
-        target=_REC + "chain:hw_chain",
+        target=_REC + "chain_results:hw_chain",
         category=CAT_HR,
         description="Water temperature after each heat exchanger of a hot-water chain when the "
                     "listed duties are added in the listed order (array formula), or after stage "
@@ -121,7 +121,7 @@ HOT_WATER = [
     ),
     CellFunction(
         name="HW_CHAIN_RATE",
-        target=_REC + "chain:hw_chain_rate",
+        target=_REC + "chain_results:hw_chain_rate",
         category=CAT_HR,
         description="Rates a hot-water chain in water-flow order by epsilon-NTU: rated streams "
                     "(source inlet, capacity rate, UA) and engine loops at fixed duty with a dump "
@@ -167,7 +167,7 @@ HOT_WATER = [
     ),
     CellFunction(
         name="HW_CHAIN_CHECK",
-        target=_REC + "chain:hw_chain_check",
+        target=_REC + "chain_results:hw_chain_check",
         category=CAT_HR,
         description='"OK", or one line naming the first stage of a hot-water chain where the water '
                     "leaves above its source inlet minus the approach (hot end), the source leaves "
