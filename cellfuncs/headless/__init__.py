@@ -5,6 +5,8 @@ Modules, one job each:
 * :mod:`~cellfuncs.headless.engine` — the formula engine (``formualizer``): how our
   functions are registered and called, values in and out, and every workaround
   for what the engine does not do by itself;
+* :mod:`~cellfuncs.headless.values` — the engine's values in and out, the callback
+  that calls a catalogue function;
 * :mod:`~cellfuncs.headless.formula_text` — formula text for the engine (omitted
   arguments, add-in prefixes, links to other workbooks) and what a formula refers to;
 * :mod:`~cellfuncs.headless.book` — what the engine needs from a package (read only);
